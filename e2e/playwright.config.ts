@@ -1,0 +1,55 @@
+import { defineConfig, devices } from '@playwright/test';
+
+const port = Number(process.env['E2E_PORT'] ?? 4310);
+const baseURL = `http://127.0.0.1:${port}`;
+
+/**
+ * Browser tests drive Debian's Chromium (never a downloaded browser) against the built app,
+ * served by the built server on its own port with the test database from `npm test`.
+ */
+export default defineConfig({
+  testDir: '.',
+  outputDir: './artifacts',
+  fullyParallel: true,
+  forbidOnly: !!process.env['CI'],
+  retries: 0,
+  workers: 2,
+  reporter: [['list'], ['html', { outputFolder: './report', open: 'never' }]],
+  use: {
+    baseURL,
+    trace: 'retain-on-failure',
+    screenshot: 'only-on-failure',
+    launchOptions: {
+      executablePath: '/usr/bin/chromium',
+      // Keep the browser off the network: this machine reaches nothing but loopback.
+      args: [
+        '--no-sandbox',
+        '--disable-gpu',
+        '--disable-background-networking',
+        '--disable-component-update',
+        '--disable-sync',
+        '--no-first-run',
+        '--disable-quic',
+      ],
+    },
+  },
+  projects: [
+    { name: 'desktop', use: { ...devices['Desktop Chrome'], viewport: { width: 1280, height: 800 } } },
+  ],
+  webServer: {
+    command: 'node dist/api/server/main.js',
+    cwd: '..',
+    url: `${baseURL}/api/health`,
+    reuseExistingServer: false,
+    timeout: 60_000,
+    stdout: 'ignore',
+    stderr: 'pipe',
+    env: {
+      PORT: String(port),
+      HOST: '127.0.0.1',
+      NODE_ENV: 'test',
+      LOG_LEVEL: 'warn',
+      DATABASE_URL: process.env['DATABASE_URL'] ?? '',
+    },
+  },
+});

@@ -1,0 +1,54 @@
+// `npm start`: installs what is missing, starts PostgreSQL (unless DATABASE_URL points elsewhere),
+// migrates, seeds the demo scenario, builds the app and serves it; Ctrl-C stops it all cleanly.
+import { spawn } from 'node:child_process';
+
+import { log, run } from './process.mjs';
+import { ensureNpmDependencies } from './npm-deps.mjs';
+import { loadDotEnv, root } from './paths.mjs';
+
+async function start() {
+  loadDotEnv();
+  await ensureNpmDependencies(root);
+
+  let stopDatabase = async () => {};
+  let databaseUrl = process.env.DATABASE_URL;
+  if (databaseUrl) {
+    log('DATABASE_URL is set: using that server, starting none');
+  } else {
+    const { openLocalDatabase } = await import('./local-database.mjs');
+    const db = await openLocalDatabase('flowlore');
+    databaseUrl = db.url;
+    stopDatabase = db.stop;
+  }
+  const env = { ...process.env, DATABASE_URL: databaseUrl, NODE_ENV: process.env.NODE_ENV ?? 'development' };
+
+  let server;
+  let interrupted = false;
+  const onSignal = (signal) => {
+    interrupted = true;
+    if (server) server.kill('SIGTERM');
+    else log(`${signal}: stopping after the current step`);
+  };
+  process.on('SIGINT', onSignal);
+  process.on('SIGTERM', onSignal);
+
+  try {
+    log('building the app');
+    await run('npm', ['run', '--silent', 'build'], { cwd: root, env });
+    await run('node', ['dist/api/server/cli.js', 'migrate'], { cwd: root, env });
+    await run('node', ['dist/api/server/cli.js', 'seed'], { cwd: root, env });
+    if (interrupted) return 0;
+    server = spawn('node', ['dist/api/server/main.js'], { cwd: root, env, stdio: 'inherit' });
+    return await new Promise((resolve) => server.on('exit', (code, signal) => resolve(code ?? (signal ? 0 : 1))));
+  } finally {
+    await stopDatabase();
+  }
+}
+
+start().then(
+  (code) => process.exit(code),
+  (error) => {
+    process.stderr.write(`[flowlore] npm start failed: ${error.message}\n`);
+    process.exit(1);
+  },
+);

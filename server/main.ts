@@ -1,0 +1,66 @@
+import { createServer } from 'node:http';
+import { setTimeout as sleep } from 'node:timers/promises';
+
+import type { DataSource } from 'typeorm';
+import type { Logger } from 'pino';
+
+import { createApp } from './app';
+import { loadConfig } from './config';
+import { createDataSource } from './database/data-source';
+import { createLogger } from './logger';
+
+/** Starts the API and the client on one port; stops gracefully on SIGINT/SIGTERM. */
+async function main(): Promise<void> {
+  const config = loadConfig();
+  const logger = createLogger(config.logLevel);
+  const dataSource = createDataSource({ url: config.databaseUrl, logger });
+  await connectWithRetry(dataSource, logger);
+
+  const app = createApp({ config, dataSource, logger });
+  const server = createServer(app);
+  server.listen(config.port, config.host, () => {
+    const address = server.address();
+    const port = typeof address === 'object' && address ? address.port : config.port;
+    logger.info({ port, host: config.host }, 'listening');
+    process.stdout.write(`\nFlowlore is running at http://${config.host}:${port}/\n\n`);
+  });
+
+  let stopping = false;
+  const stop = (signal: string) => {
+    if (stopping) return;
+    stopping = true;
+    logger.info({ signal }, 'shutting down: finishing in-flight requests');
+    const force = setTimeout(() => {
+      logger.warn('grace period over: closing remaining connections');
+      server.closeAllConnections();
+    }, config.shutdownGraceSeconds * 1000);
+    force.unref();
+    server.close(async () => {
+      await dataSource.destroy().catch((err: unknown) => logger.warn({ err }, 'closing the database pool failed'));
+      logger.info('stopped');
+      process.exit(0);
+    });
+    server.closeIdleConnections();
+  };
+  process.on('SIGINT', () => stop('SIGINT'));
+  process.on('SIGTERM', () => stop('SIGTERM'));
+}
+
+/** The database may still be starting (or briefly away) when the app starts: retry for a while. */
+async function connectWithRetry(dataSource: DataSource, logger: Logger, attempts = 30): Promise<void> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      await dataSource.initialize();
+      return;
+    } catch (err) {
+      if (attempt >= attempts) throw err;
+      logger.warn({ err, attempt }, 'database not reachable yet; retrying');
+      await sleep(1000);
+    }
+  }
+}
+
+main().catch((err: unknown) => {
+  process.stderr.write(`Flowlore could not start: ${err instanceof Error ? err.message : String(err)}\n`);
+  process.exit(1);
+});
