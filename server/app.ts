@@ -8,6 +8,7 @@ import { pinoHttp } from 'pino-http';
 import type { DataSource } from 'typeorm';
 
 import type { Config } from './config';
+import { calculatorsRouter } from './calculators/calculators.router';
 import { healthRouter } from './health/health.router';
 import { apiNotFound, problemHandler } from './http/error-handler';
 
@@ -43,6 +44,7 @@ export function createApp({ config, dataSource, logger }: AppDependencies): Expr
   const api = express.Router();
   api.use(express.json({ limit: '100kb' }));
   api.use('/health', healthRouter(dataSource));
+  api.use('/calculators', calculatorsRouter());
   api.use(apiNotFound);
   app.use('/api', api);
 

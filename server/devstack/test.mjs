@@ -34,6 +34,7 @@ async function test() {
   try {
     await step('building the app', 'npm', ['run', '--silent', 'build']);
     if (failures.length === 0) {
+      await step('type-checking the tests too', 'npm', ['run', '--silent', 'typecheck']);
       await step('unit and API tests (jest)', 'npx', ['jest', '--ci']);
       await step('migrating the test database', 'node', ['dist/api/server/cli.js', 'migrate']);
       await step('browser tests (Playwright)', 'npx', ['playwright', 'test', '-c', 'e2e/playwright.config.ts']);

@@ -1,0 +1,45 @@
+import { Router } from 'express';
+
+import { describeCalculator, evaluate, listCalculators, type FieldError } from '../../shared/airflow';
+import { calculationRequestSchema, type CalculationRequestBody } from '../../shared/api/calculators';
+import { HttpProblem, type FieldProblem } from '../http/problem';
+import { validateBody } from '../http/validate';
+
+/** The public calculators: the catalogue, and the same engine the browser runs, on the server. */
+export function calculatorsRouter(): Router {
+  const router = Router();
+  const catalogue = listCalculators();
+
+  router.get('/', (_req, res) => {
+    res.set('Cache-Control', 'public, max-age=300').json(catalogue);
+  });
+
+  router.get('/:id', (req, res) => {
+    res.set('Cache-Control', 'public, max-age=300').json(requireCalculator(req.params.id));
+  });
+
+  router.post('/:id', (req, _res, next) => {
+    requireCalculator(req.params.id);
+    next();
+  }, validateBody(calculationRequestSchema), (req, res) => {
+    const outcome = evaluate(req.params.id as string, res.locals['body'] as CalculationRequestBody);
+    if (!outcome.ok) {
+      throw HttpProblem.badRequest('Some inputs cannot be used; each is listed with the reason.', outcome.errors.map(toRequestField));
+    }
+    res.json(outcome.result);
+  });
+
+  return router;
+}
+
+function requireCalculator(id: string | undefined) {
+  const summary = id ? describeCalculator(id) : undefined;
+  if (!summary) throw HttpProblem.notFound(`There is no calculator "${id}". GET /api/calculators lists them.`);
+  return summary;
+}
+
+/** Engine errors name an input; the API names the place in the request body. */
+function toRequestField(error: FieldError): FieldProblem {
+  if (error.field.startsWith('outputUnits.')) return error;
+  return { field: error.field ? `inputs.${error.field}` : 'inputs', message: error.message };
+}
