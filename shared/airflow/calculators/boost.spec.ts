@@ -1,0 +1,60 @@
+import * as fc from 'fast-check';
+import { evaluate } from '../index';
+import type { CalculationResult, InputValue } from '../index';
+
+function run(id: string, inputs: Record<string, InputValue>, outputUnits?: Record<string, string>): CalculationResult {
+  const outcome = evaluate(id, outputUnits === undefined ? { inputs } : { inputs, outputUnits });
+  if (!outcome.ok) throw new Error(`${id} refused: ${JSON.stringify(outcome.errors)}`);
+  return outcome.result;
+}
+const out = (r: CalculationResult, name: string) => r.outputs[name]?.value ?? Number.NaN;
+const q = (value: number, unit: string) => ({ value, unit });
+
+describe('boost', () => {
+  const base = { ambientPressure: q(100, 'kPa'), inletTemperature: q(300, 'K') };
+
+  it('isentropic compression at PR 2 from 300 K gives 365.7 K', () => {
+    // textbook isentropic relation T2s = T1·PR^((γ−1)/γ), γ = 1.4 (Çengel & Boles, Thermodynamics; from memory): 365.7 K
+    const r = run('boost', { ...base, boostPressure: q(100, 'kPa'), compressorEfficiency: q(100, '%') });
+    expect(out(r, 'pressureRatio')).toBeCloseTo(2, 12);
+    expect(out(r, 'isentropicOutletTemperature')).toBeCloseTo(365.7, 1);
+    expect(out(r, 'compressorOutletTemperature')).toBeCloseTo(out(r, 'isentropicOutletTemperature'), 9);
+  });
+
+  it('efficiency, intercooler and density ratio by hand', () => {
+    const r = run('boost', { ...base, boostPressure: q(100, 'kPa'), compressorEfficiency: q(75, '%'), intercoolerEffectiveness: q(80, '%'), coolantTemperature: q(300, 'K') });
+    // by hand: T2 = 300 (1 + (2^0.285714 − 1)/0.75) = 387.605 K
+    const t2 = 300 * (1 + (2 ** (0.4 / 1.4) - 1) / 0.75);
+    expect(out(r, 'compressorOutletTemperature')).toBeCloseTo(t2, 9);
+    // by hand: T3 = T2 − 0.8 (T2 − 300) = 317.521 K
+    const t3 = t2 - 0.8 * (t2 - 300);
+    expect(out(r, 'intercoolerOutletTemperature')).toBeCloseTo(t3, 9);
+    // by hand: density ratio = (200/100)(300/T3) = 1.88963; gain = 88.96 %
+    expect(out(r, 'densityRatio')).toBeCloseTo(2 * (300 / t3), 9);
+    expect(out(r, 'massFlowGain')).toBeCloseTo((2 * (300 / t3) - 1) * 100, 7);
+  });
+
+  it('an intercooler pressure drop raises the pressure ratio, not the manifold pressure', () => {
+    const r = run('boost', { ...base, boostPressure: q(100, 'kPa'), compressorEfficiency: q(70, '%'), intercoolerPressureDrop: q(10, 'kPa') });
+    expect(out(r, 'pressureRatio')).toBeCloseTo(2.1, 12);
+    expect(out(r, 'densityRatio')).toBeCloseTo(2 * (300 / out(r, 'intercoolerOutletTemperature')), 12);
+  });
+
+  it('US units: 10 psi boost at sea level', () => {
+    const r = run('boost', { boostPressure: q(10, 'psi'), ambientPressure: q(14.7, 'psi'), inletTemperature: q(77, 'degF'), compressorEfficiency: q(70, '%') }, { compressorOutletTemperature: 'degF' });
+    // by hand: PR = 24.7/14.7 = 1.68027; T2 = 536.67 °R (1 + (1.68027^0.285714 − 1)/0.7) − 459.67
+    const t2R = 536.67 * (1 + ((24.7 / 14.7) ** (0.4 / 1.4) - 1) / 0.7);
+    expect(out(r, 'compressorOutletTemperature')).toBeCloseTo(t2R - 459.67, 6);
+  });
+
+  it('outlet temperature rises with boost and falls with efficiency (property)', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 0, max: 300, noNaN: true }), fc.double({ min: 1, max: 100, noNaN: true }), fc.double({ min: 40, max: 95, noNaN: true }), (b, db, eta) => {
+        const t2 = (boost: number, e: number) => out(run('boost', { ...base, boostPressure: q(boost, 'kPa'), compressorEfficiency: q(e, '%') }), 'compressorOutletTemperature');
+        expect(t2(b + db, eta)).toBeGreaterThan(t2(b, eta));
+        if (b > 0.01) expect(t2(b, eta + 5)).toBeLessThan(t2(b, eta));
+      }),
+      { numRuns: 50 },
+    );
+  });
+});

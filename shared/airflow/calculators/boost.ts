@@ -1,0 +1,113 @@
+import { bound, defineCalculator } from '../define';
+import { compressorOutletTemperature, GAMMA_AIR, intercoolerOutletTemperature, isentropicOutletTemperature } from '../compression';
+import { num, qty } from '../latex';
+import { absolutePressure, airTemperature, efficiency } from './common-inputs';
+import { CHARGE_AIR_HAZARD } from './hazards';
+
+export const boost = defineCalculator({
+  id: 'boost',
+  title: 'Boost, compressor outlet temperature and intercooling',
+  topic: 'Forced induction',
+  summary:
+    'From boost pressure and ambient conditions: pressure ratio, compressor outlet temperature (isentropic compression with an efficiency, γ = 1.4), intercooler outlet temperature from its effectiveness, and the charge density ratio and mass-flow gain over an unboosted engine.',
+  hazard: CHARGE_AIR_HAZARD,
+  inputs: {
+    boostPressure: {
+      label: 'Boost pressure (gauge, at the manifold)',
+      symbol: 'p_{b}',
+      kind: 'pressure',
+      min: bound(0, 'Pa'),
+      example: { value: 10, unit: 'psi' },
+      help: 'What a boost gauge reads: manifold pressure above ambient, after the intercooler.',
+    },
+    ambientPressure: absolutePressure('Ambient pressure (absolute)', 'p_{1}', { value: 14.7, unit: 'psi' },
+      'Barometric pressure; the compressor inlet is taken at ambient (air-filter drop neglected). About 14.7 psi at sea level (shop common practice).'),
+    inletTemperature: airTemperature('Compressor inlet temperature', 'T_{1}', { value: 25, unit: 'degC' }, 'Temperature of the air entering the compressor.'),
+    compressorEfficiency: efficiency('Compressor efficiency', '\\eta_{c}', { value: 72, unit: '%' },
+      'Isentropic (adiabatic) efficiency at the operating point, from the compressor map: often 60–78 %.'),
+    intercoolerEffectiveness: {
+      label: 'Intercooler effectiveness',
+      symbol: '\\varepsilon',
+      kind: 'percent',
+      min: bound(0, '%'),
+      max: bound(100, '%'),
+      optional: true,
+      default: 0,
+      example: { value: 75, unit: '%' },
+      help: 'Share of the possible temperature drop the intercooler achieves (0 % or empty: no intercooler).',
+    },
+    coolantTemperature: {
+      ...airTemperature('Coolant temperature', 'T_{c}', { value: 25, unit: 'degC' },
+        'Temperature of the cooling air (air-to-air) or water (air-to-water). Empty: same as the compressor inlet air.'),
+      optional: true,
+    },
+    intercoolerPressureDrop: {
+      label: 'Intercooler pressure drop',
+      symbol: '\\Delta p_{ic}',
+      kind: 'pressure',
+      min: bound(0, 'Pa'),
+      optional: true,
+      default: { value: 0, unit: 'Pa' },
+      help: 'Pressure lost across the intercooler and pipes. Empty: neglected (the compressor outlet is then at boost pressure).',
+    },
+  },
+  outputs: {
+    pressureRatio: { label: 'Pressure ratio', symbol: 'PR', kind: 'ratio', us: '' },
+    isentropicOutletTemperature: { label: 'Ideal (isentropic) outlet temperature', symbol: 'T_{2s}', kind: 'temperature', us: 'degF' },
+    compressorOutletTemperature: { label: 'Compressor outlet temperature', symbol: 'T_{2}', kind: 'temperature', us: 'degF' },
+    intercoolerOutletTemperature: { label: 'Intercooler outlet temperature', symbol: 'T_{3}', kind: 'temperature', us: 'degF' },
+    densityRatio: { label: 'Density ratio (charge/ambient)', symbol: '\\rho_{3}/\\rho_{1}', kind: 'ratio', us: '' },
+    massFlowGain: { label: 'Mass-flow gain', symbol: 'G', kind: 'percent', us: '%', help: 'Extra air mass at the same engine speed and volumetric efficiency.' },
+  },
+  compute(ctx) {
+    const boostPa = ctx.value('boostPressure');
+    const p1 = ctx.value('ambientPressure');
+    const t1 = ctx.value('inletTemperature');
+    const eta = ctx.value('compressorEfficiency');
+    const eps = ctx.value('intercoolerEffectiveness');
+    const tc = ctx.has('coolantTemperature') ? ctx.value('coolantTemperature') : t1;
+    const dpIc = ctx.value('intercoolerPressureDrop');
+    const p3 = p1 + boostPa;
+    const p2 = p3 + dpIc;
+    const pr = p2 / p1;
+    ctx.step('Pressure ratio across the compressor (absolute pressures)',
+      'PR = \\frac{p_{2}}{p_{1}} = \\frac{p_{1} + p_{b} + \\Delta p_{ic}}{p_{1}}',
+      `PR = \\frac{${qty(p1, 'Pa')} + ${qty(boostPa, 'Pa')} + ${qty(dpIc, 'Pa')}}{${qty(p1, 'Pa')}}`,
+      `PR = ${num(pr)}`);
+    const exponent = (GAMMA_AIR - 1) / GAMMA_AIR;
+    const t2s = isentropicOutletTemperature(t1, pr);
+    ctx.step('Ideal (isentropic) compression, γ = 1.4',
+      'T_{2s} = T_{1}\\,PR^{(\\gamma - 1)/\\gamma}',
+      `T_{2s} = ${qty(t1, 'K')} \\times ${num(pr)}^{${num(exponent)}}`,
+      `T_{2s} = ${qty(t2s, 'K')}`);
+    const t2 = compressorOutletTemperature(t1, pr, eta);
+    ctx.step('Real compressor: the efficiency adds heat',
+      'T_{2} = T_{1}\\left(1 + \\frac{PR^{(\\gamma - 1)/\\gamma} - 1}{\\eta_{c}}\\right)',
+      `T_{2} = ${qty(t1, 'K')} \\times \\left(1 + \\frac{${num(pr)}^{${num(exponent)}} - 1}{${num(eta)}}\\right)`,
+      `T_{2} = ${qty(t2, 'K')} = ${qty(t2 - 273.15, 'degC', 4)}`);
+    if (tc > t2) ctx.warn('coolantTemperature', 'The coolant is hotter than the compressor outlet air: the intercooler would heat the charge.');
+    const t3 = intercoolerOutletTemperature(t2, eps, tc);
+    ctx.step('Intercooler: removes a share ε of the possible temperature drop',
+      'T_{3} = T_{2} - \\varepsilon\\,(T_{2} - T_{c})',
+      `T_{3} = ${qty(t2, 'K')} - ${num(eps)} \\times (${qty(t2, 'K')} - ${qty(tc, 'K')})`,
+      `T_{3} = ${qty(t3, 'K')} = ${qty(t3 - 273.15, 'degC', 4)}`);
+    const densityRatio = (p3 / p1) * (t1 / t3);
+    ctx.step('Charge density over ambient density (ideal gas, manifold pressure)',
+      '\\frac{\\rho_{3}}{\\rho_{1}} = \\frac{p_{3}}{p_{1}}\\cdot\\frac{T_{1}}{T_{3}},\\quad p_{3} = p_{1} + p_{b}',
+      `\\frac{\\rho_{3}}{\\rho_{1}} = \\frac{${qty(p3, 'Pa')}}{${qty(p1, 'Pa')}} \\times \\frac{${qty(t1, 'K')}}{${qty(t3, 'K')}}`,
+      `\\frac{\\rho_{3}}{\\rho_{1}} = ${num(densityRatio)}`);
+    const gain = densityRatio - 1;
+    ctx.step('Mass-flow gain at the same engine speed and volumetric efficiency',
+      'G = \\frac{\\rho_{3}}{\\rho_{1}} - 1',
+      `G = ${num(densityRatio)} - 1`,
+      `G = ${num(gain)} = ${num(gain * 100, 4)}\\,\\%`);
+    return {
+      pressureRatio: pr,
+      isentropicOutletTemperature: t2s,
+      compressorOutletTemperature: t2,
+      intercoolerOutletTemperature: t3,
+      densityRatio,
+      massFlowGain: gain,
+    };
+  },
+});

@@ -1,0 +1,70 @@
+import { defineCalculator } from '../define';
+import { paren, qty } from '../latex';
+import { absolutePressure } from './common-inputs';
+import { COMPRESSED_AIR_HAZARD } from './hazards';
+
+const STANDARD_AMBIENT_PA = 101325;
+
+export const pressureConvert = defineCalculator({
+  id: 'pressure-convert',
+  title: 'Pressure: units, absolute and gauge',
+  topic: 'Pressure',
+  summary:
+    'Converts a pressure between psi, kPa, bar, inches of mercury, inches of water and more, and between absolute and gauge pressure using the ambient (barometric) pressure.',
+  hazard: COMPRESSED_AIR_HAZARD,
+  inputs: {
+    pressure: {
+      label: 'Pressure',
+      symbol: 'p',
+      kind: 'pressure',
+      example: { value: 30, unit: 'psi' },
+      help: 'The reading to convert. Choose below whether it is absolute or gauge.',
+    },
+    kind: {
+      label: 'The reading is',
+      symbol: '',
+      kind: 'option',
+      options: [
+        { value: 'gauge', label: 'Gauge (relative to the air around you)', help: 'A tyre or boost gauge reads 0 at ambient.' },
+        { value: 'absolute', label: 'Absolute (relative to a perfect vacuum)', help: 'A barometer reads absolute pressure.' },
+      ],
+      example: 'gauge',
+      help: 'Gauge pressure reads zero at ambient; absolute pressure reads zero in a perfect vacuum.',
+    },
+    ambient: {
+      ...absolutePressure('Ambient (barometric) pressure', 'p_{amb}', { value: 29.92, unit: 'inHg' },
+        'Station pressure from a barometer (not the sea-level figure a weather report gives). Left empty: 101.325 kPa, the standard sea-level atmosphere.'),
+      optional: true,
+      default: { value: STANDARD_AMBIENT_PA, unit: 'Pa' },
+    },
+  },
+  outputs: {
+    absolute: { label: 'Absolute pressure', symbol: 'p_{abs}', kind: 'pressure', us: 'psi' },
+    gauge: { label: 'Gauge pressure', symbol: 'p_{g}', kind: 'pressure', us: 'psi' },
+  },
+  compute(ctx) {
+    const p = ctx.value('pressure');
+    const ambient = ctx.value('ambient');
+    if (!ctx.has('ambient')) {
+      ctx.warn('ambient', 'No ambient pressure given: 101.325 kPa (about 14.7 psi, shop common practice) assumed. Use your barometer for real work.');
+    }
+    if (ctx.option('kind') === 'absolute') {
+      if (p <= 0) ctx.fail('pressure', 'An absolute pressure must be above zero (zero is a perfect vacuum).');
+      const gauge = p - ambient;
+      ctx.step('Gauge pressure is absolute pressure minus ambient',
+        'p_{g} = p_{abs} - p_{amb}',
+        `p_{g} = ${qty(p, 'Pa')} - ${qty(ambient, 'Pa')}`,
+        `p_{g} = ${qty(gauge, 'Pa')}`);
+      return { absolute: p, gauge };
+    }
+    const absolute = p + ambient;
+    if (absolute <= 0) {
+      ctx.fail('pressure', 'This gauge reading is below a perfect vacuum at the ambient pressure given: a vacuum gauge cannot read lower than minus the ambient pressure.');
+    }
+    ctx.step('Absolute pressure is gauge pressure plus ambient',
+      'p_{abs} = p_{g} + p_{amb}',
+      `p_{abs} = ${paren(qty(p, 'Pa'))} + ${qty(ambient, 'Pa')}`,
+      `p_{abs} = ${qty(absolute, 'Pa')}`);
+    return { absolute, gauge: p };
+  },
+});

@@ -1,0 +1,23 @@
+/* Flowlore's airflow engine: unit-aware calculators with worked steps, for browser and server. */
+export type {
+  Bound,
+  CalculationOutcome,
+  CalculationRequest,
+  CalculationResult,
+  CalculatorSummary,
+  FieldError,
+  InputGroup,
+  InputKind,
+  InputSummary,
+  InputValue,
+  OptionChoice,
+  OutputSummary,
+  QuantityKind,
+  QuantityOut,
+  Step,
+  Topic,
+  UnitPair,
+} from './types';
+export { describeCalculator, evaluate, exampleRequest, listCalculators } from './catalogue';
+export { convert, DEFAULT_UNITS, isUnitOf, SI_UNIT, UNITS_BY_KIND } from './units';
+export { STANDARD_CONDITIONS, type StandardCondition } from './standard-conditions';
