@@ -4,13 +4,13 @@ import { join } from 'node:path';
 import express, { type Express, type RequestHandler } from 'express';
 import helmet from 'helmet';
 import type { Logger } from 'pino';
-import { pinoHttp } from 'pino-http';
 import type { DataSource } from 'typeorm';
 
 import type { Config } from './config';
 import { calculatorsRouter } from './calculators/calculators.router';
 import { healthRouter } from './health/health.router';
 import { apiNotFound, problemHandler } from './http/error-handler';
+import { requestLog } from './http/request-log';
 
 export interface AppDependencies {
   readonly config: Config;
@@ -24,22 +24,7 @@ export function createApp({ config, dataSource, logger }: AppDependencies): Expr
   app.disable('x-powered-by');
   app.set('trust proxy', config.trustProxyHops);
   app.use(securityHeaders(config));
-  app.use(
-    pinoHttp({
-      logger,
-      customLogLevel: (_req, res, err) => (err || res.statusCode >= 500 ? 'error' : 'info'),
-      // One compact line per request: method, path, status, time; never headers or bodies.
-      serializers: {
-        req: (req: { id: unknown; method: string; url: string; remoteAddress?: string }) => ({
-          id: req.id,
-          method: req.method,
-          url: req.url,
-          remoteAddress: req.remoteAddress,
-        }),
-        res: (res: { statusCode: number }) => ({ statusCode: res.statusCode }),
-      },
-    }),
-  );
+  app.use(requestLog(logger));
 
   const api = express.Router();
   api.use(express.json({ limit: '100kb' }));
@@ -49,7 +34,7 @@ export function createApp({ config, dataSource, logger }: AppDependencies): Expr
   app.use('/api', api);
 
   app.use(clientApp(config.clientDir));
-  app.use(problemHandler);
+  app.use(problemHandler(logger));
   return app;
 }
 

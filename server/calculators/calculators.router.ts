@@ -1,14 +1,22 @@
 import { Router } from 'express';
 
-import { describeCalculator, evaluate, listCalculators, type FieldError } from '../../shared/airflow';
+import { listCalculators, type CalculatorSummary, type FieldError } from '../../shared/airflow';
 import { calculationRequestSchema, type CalculationRequestBody } from '../../shared/api/calculators';
 import { HttpProblem, type FieldProblem } from '../http/problem';
 import { validateBody } from '../http/validate';
+import { CalculationCache } from './calculation-cache';
 
 /** The public calculators: the catalogue, and the same engine the browser runs, on the server. */
 export function calculatorsRouter(): Router {
   const router = Router();
   const catalogue = listCalculators();
+  const byId = new Map(catalogue.map((summary) => [summary.id, summary]));
+  const calculations = new CalculationCache();
+  const requireCalculator = (id: string | undefined): CalculatorSummary => {
+    const summary = id ? byId.get(id) : undefined;
+    if (!summary) throw HttpProblem.notFound(`There is no calculator "${id}". GET /api/calculators lists them.`);
+    return summary;
+  };
 
   router.get('/', (_req, res) => {
     res.set('Cache-Control', 'public, max-age=300').json(catalogue);
@@ -22,7 +30,7 @@ export function calculatorsRouter(): Router {
     requireCalculator(req.params.id);
     next();
   }, validateBody(calculationRequestSchema), (req, res) => {
-    const outcome = evaluate(req.params.id as string, res.locals['body'] as CalculationRequestBody);
+    const outcome = calculations.evaluate(req.params.id as string, res.locals['body'] as CalculationRequestBody);
     if (!outcome.ok) {
       throw HttpProblem.badRequest('Some inputs cannot be used; each is listed with the reason.', outcome.errors.map(toRequestField));
     }
@@ -30,12 +38,6 @@ export function calculatorsRouter(): Router {
   });
 
   return router;
-}
-
-function requireCalculator(id: string | undefined) {
-  const summary = id ? describeCalculator(id) : undefined;
-  if (!summary) throw HttpProblem.notFound(`There is no calculator "${id}". GET /api/calculators lists them.`);
-  return summary;
 }
 
 /** Engine errors name an input; the API names the place in the request body. */

@@ -1,4 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express';
+import type { Logger } from 'pino';
 
 import { HttpProblem, PROBLEM_CONTENT_TYPE } from './problem';
 
@@ -14,15 +15,17 @@ interface BodyParserError extends Error {
 }
 
 /** Turns every error into RFC 9457 problem+json; unexpected ones are logged, never echoed. */
-export const problemHandler: ErrorRequestHandler = (error: unknown, req, res, next) => {
-  if (res.headersSent) {
-    next(error);
-    return;
-  }
-  const problem = toProblem(error);
-  if (problem.status >= 500) req.log?.error({ err: error }, 'request failed');
-  res.status(problem.status).type(PROBLEM_CONTENT_TYPE).json(problem.toBody(req.originalUrl));
-};
+export function problemHandler(logger: Logger): ErrorRequestHandler {
+  return (error: unknown, req, res, next) => {
+    if (res.headersSent) {
+      next(error);
+      return;
+    }
+    const problem = toProblem(error);
+    if (problem.status >= 500) logger.error({ err: error, reqId: res.locals['requestId'] }, 'request failed');
+    res.status(problem.status).type(PROBLEM_CONTENT_TYPE).json(problem.toBody(req.originalUrl));
+  };
+}
 
 function toProblem(error: unknown): HttpProblem {
   if (error instanceof HttpProblem) return error;

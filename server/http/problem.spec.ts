@@ -1,4 +1,5 @@
 import express from 'express';
+import pino from 'pino';
 import request from 'supertest';
 import { z } from 'zod';
 
@@ -20,7 +21,7 @@ function appWith(): express.Express {
   app.get('/gone', () => {
     throw new HttpProblem(410, 'Gone', 'That bench log was withdrawn.');
   });
-  app.use(problemHandler);
+  app.use(problemHandler(pino({ level: 'silent' })));
   return app;
 }
 
