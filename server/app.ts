@@ -11,15 +11,19 @@ import { calculatorsRouter } from './calculators/calculators.router';
 import { healthRouter } from './health/health.router';
 import { apiNotFound, problemHandler } from './http/error-handler';
 import { requestLog } from './http/request-log';
+import { LessonStore } from './lessons/lesson-store';
+import { lessonsRouter } from './lessons/lessons.router';
 
 export interface AppDependencies {
   readonly config: Config;
   readonly dataSource: DataSource;
   readonly logger: Logger;
+  /** The rendered course; made from `config.contentDir` when not given. */
+  readonly lessons?: LessonStore;
 }
 
 /** Builds the Express app (API + the built Angular client); it does not listen. */
-export function createApp({ config, dataSource, logger }: AppDependencies): Express {
+export function createApp({ config, dataSource, logger, lessons = new LessonStore(config.contentDir, logger) }: AppDependencies): Express {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', config.trustProxyHops);
@@ -30,6 +34,7 @@ export function createApp({ config, dataSource, logger }: AppDependencies): Expr
   api.use(express.json({ limit: '100kb' }));
   api.use('/health', healthRouter(dataSource));
   api.use('/calculators', calculatorsRouter());
+  api.use(lessonsRouter(lessons.current));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -13,6 +13,8 @@ export interface Config {
   readonly logLevel: string;
   /** The built Angular app, served from the same process as the API. */
   readonly clientDir: string;
+  /** The lesson Markdown files (content/lessons), rendered at start-up. */
+  readonly contentDir: string;
   /** Seconds to let in-flight requests finish on shutdown before closing them. */
   readonly shutdownGraceSeconds: number;
 }
@@ -25,6 +27,7 @@ const schema = z.object({
   TRUST_PROXY_HOPS: z.coerce.number().int().min(0).default(0),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   CLIENT_DIR: z.string().min(1).default('dist/client/browser'),
+  CONTENT_DIR: z.string().min(1).default('content/lessons'),
   SHUTDOWN_GRACE_SECONDS: z.coerce.number().positive().default(10),
 });
 
@@ -45,6 +48,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     trustProxyHops: value.TRUST_PROXY_HOPS,
     logLevel: value.LOG_LEVEL,
     clientDir: resolve(value.CLIENT_DIR),
+    contentDir: resolve(value.CONTENT_DIR),
     shutdownGraceSeconds: value.SHUTDOWN_GRACE_SECONDS,
   };
 }

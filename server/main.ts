@@ -7,6 +7,7 @@ import type { Logger } from 'pino';
 import { createApp } from './app';
 import { loadConfig } from './config';
 import { createDataSource } from './database/data-source';
+import { LessonStore } from './lessons/lesson-store';
 import { createLogger } from './logger';
 
 /** Starts the API and the client on one port; stops gracefully on SIGINT/SIGTERM. */
@@ -16,7 +17,9 @@ async function main(): Promise<void> {
   const dataSource = createDataSource({ url: config.databaseUrl, logger });
   await connectWithRetry(dataSource, logger);
 
-  const app = createApp({ config, dataSource, logger });
+  const lessons = new LessonStore(config.contentDir, logger);
+  if (config.env === 'development') lessons.watch();
+  const app = createApp({ config, dataSource, logger, lessons });
   const server = createServer(app);
   server.listen(config.port, config.host, () => {
     const address = server.address();

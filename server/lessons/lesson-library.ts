@@ -1,0 +1,88 @@
+import { createHash } from 'node:crypto';
+import { readdirSync, readFileSync } from 'node:fs';
+import { join } from 'node:path';
+
+import { describeCalculator } from '../../shared/airflow';
+import type { GlossaryEntry, LessonOutline, LessonPage } from '../../shared/api/lessons';
+import { linksIn } from './sanitize';
+import { renderLesson, type RenderedLesson } from './render-lesson';
+
+/** A response body serialised once, with its strong ETag. */
+export interface CachedBody {
+  readonly json: string;
+  readonly etag: string;
+}
+
+export interface LessonLibrary {
+  readonly lessons: readonly RenderedLesson[];
+  readonly outline: CachedBody;
+  readonly glossary: CachedBody;
+  readonly pages: ReadonlyMap<string, CachedBody>;
+  /** Files that failed to render (the content tests require this to be empty). */
+  readonly errors: readonly string[];
+}
+
+function cached(value: unknown): CachedBody {
+  const json = JSON.stringify(value);
+  return { json, etag: `"${createHash('sha256').update(json).digest('base64url').slice(0, 27)}"` };
+}
+
+function outlineOf(lesson: RenderedLesson): LessonOutline {
+  const { slug, title, order, summary, minutes, objectives, free } = lesson.meta;
+  return { slug, title, order, summary, minutes, objectives, free };
+}
+
+/** Renders every lesson in `dir` once; the API serves the cached bodies. */
+export function loadLessonLibrary(dir: string): LessonLibrary {
+  const lessons: RenderedLesson[] = [];
+  const errors: string[] = [];
+  for (const file of readdirSync(dir).filter((f) => f.endsWith('.md')).sort()) {
+    try {
+      lessons.push(renderLesson(readFileSync(join(dir, file), 'utf8'), file));
+    } catch (error) {
+      errors.push(error instanceof Error ? error.message : String(error));
+    }
+  }
+  lessons.sort((a, b) => a.meta.order - b.meta.order);
+  const pages = new Map<string, CachedBody>();
+  lessons.forEach((lesson, i) => {
+    const link = (other: RenderedLesson | undefined) => (other ? { slug: other.meta.slug, title: other.meta.title } : null);
+    const page: LessonPage = {
+      ...outlineOf(lesson),
+      html: lesson.html,
+      toc: lesson.toc,
+      embeds: lesson.embeds,
+      results: lesson.results,
+      previous: link(lessons[i - 1]),
+      next: link(lessons[i + 1]),
+    };
+    pages.set(lesson.meta.slug, cached(page));
+  });
+  const glossary: GlossaryEntry[] = lessons
+    .flatMap((lesson) => lesson.meta.glossary.map((entry) => ({ ...entry, lesson: { slug: lesson.meta.slug, title: lesson.meta.title } })))
+    .sort((a, b) => a.term.localeCompare(b.term, 'en'));
+  return { lessons, outline: cached(lessons.map(outlineOf)), glossary: cached(glossary), pages, errors };
+}
+
+const SITE_PAGES = new Set(['/', '/course', '/calculators', '/glossary']);
+
+/** Every link inside the course that would lead nowhere, as "slug: href" lines. */
+export function brokenLinks(library: LessonLibrary): string[] {
+  const anchors = new Map(library.lessons.map((l) => [l.meta.slug, new Set(l.anchors)]));
+  const broken: string[] = [];
+  for (const lesson of library.lessons) {
+    for (const href of linksIn(lesson.html)) {
+      if (/^https?:\/\//.test(href) || href.startsWith('mailto:')) continue;
+      const [path = '', anchor] = href.split('#');
+      const course = /^\/course\/([a-z0-9-]+)$/.exec(path);
+      const calculator = /^\/calculators\/([a-z0-9-]+)$/.exec(path);
+      const ok =
+        (path === '' && anchor !== undefined && anchors.get(lesson.meta.slug)!.has(anchor)) ||
+        (SITE_PAGES.has(path) && anchor === undefined) ||
+        (course !== null && anchors.has(course[1]!) && (anchor === undefined || anchors.get(course[1]!)!.has(anchor))) ||
+        (calculator !== null && anchor === undefined && describeCalculator(calculator[1]!) !== undefined);
+      if (!ok) broken.push(`${lesson.meta.slug}: ${href}`);
+    }
+  }
+  return broken;
+}

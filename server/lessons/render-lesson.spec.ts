@@ -1,0 +1,58 @@
+import { renderLesson } from './render-lesson';
+
+const frontMatter = `---
+title: A lesson for testing
+slug: testing
+order: 1
+summary: A lesson written inside a test to exercise the renderer.
+minutes: 10
+free: true
+objectives:
+  - Read a pressure gauge
+  - Convert a flow reading
+  - Work safely
+---
+`;
+
+describe('renderLesson', () => {
+  it('strips script, event handlers and javascript: links from a lesson', () => {
+    const lesson = renderLesson(
+      `${frontMatter}\n## Hello\n\n<script>alert('x')</script>\n\n<img src="x" onerror="alert(1)">\n\n[click](javascript:alert(2))\n\n<a href="/course" onclick="steal()">course</a>\n`,
+      'evil.md',
+    );
+    expect(lesson.html).not.toMatch(/<script|onerror|onclick|javascript:/i);
+    expect(lesson.html).toContain('<h2 id="hello">Hello</h2>');
+  });
+
+  it('keeps KaTeX markup through the sanitiser', () => {
+    const lesson = renderLesson(`${frontMatter}\nInline $Q = C_d A$ and display:\n\n$$\n\\sqrt{\\frac{a}{b}}\n$$\n`, 'math.md');
+    expect(lesson.html).toContain('class="katex"');
+    expect(lesson.html).toContain('<math');
+    expect(lesson.html).toContain('style="height:');
+    expect(lesson.html).toContain('<annotation encoding="application/x-tex">');
+  });
+
+  it('fails on mathematics KaTeX cannot parse', () => {
+    expect(() => renderLesson(`${frontMatter}\nBroken $\\frac{1}{$ here.\n`, 'bad-math.md')).toThrow(/bad-math\.md/);
+  });
+
+  it('fails on missing front matter fields and on unknown blocks', () => {
+    expect(() => renderLesson('---\ntitle: x\n---\nHi', 'thin.md')).toThrow(/thin\.md: front matter/);
+    expect(() => renderLesson(`${frontMatter}\n:::sidebar\nx\n:::\n`, 'block.md')).toThrow(/unknown block ":::sidebar"/);
+    expect(() => renderLesson(`${frontMatter}\n:::example No result\nprose\n:::\n`, 'ex.md')).toThrow(/no result line/);
+  });
+
+  it('collects embeds and result lines in order, leaving placeholders in the HTML', () => {
+    const lesson = renderLesson(
+      `${frontMatter}\n:::example Two readings\nText.\n\n=> mass-flow | volumeFlow=100 cfm, density=1.2 kg/m^3 | massFlow = 0.0566 kg/s\n:::\n\n:::calculator air-density\ntemperature: 68 degF\nmethod: ideal-dry\n:::\n\n:::check Why?\nBecause.\n:::\n`,
+      'blocks.md',
+    );
+    expect(lesson.results).toEqual([
+      expect.objectContaining({ index: 0, calculator: 'mass-flow', output: 'massFlow', value: 0.0566, unit: 'kg/s', tolerance: 0.00005 }),
+    ]);
+    expect(lesson.embeds).toEqual([{ index: 0, calculator: 'air-density', inputs: { temperature: { value: 68, unit: 'degF' }, method: 'ideal-dry' } }]);
+    expect(lesson.html).toContain('data-try="0"');
+    expect(lesson.html).toContain('data-embed="0"');
+    expect(lesson.html).toContain('<details class="lesson-check"><summary>Check yourself: Why?</summary>');
+  });
+});
