@@ -1,5 +1,5 @@
 import { createHash } from 'node:crypto';
-import { readdirSync, readFileSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 
 import { describeCalculator } from '../../shared/airflow';
@@ -36,7 +36,9 @@ function outlineOf(lesson: RenderedLesson): LessonOutline {
 export function loadLessonLibrary(dir: string): LessonLibrary {
   const lessons: RenderedLesson[] = [];
   const errors: string[] = [];
-  for (const file of readdirSync(dir).filter((f) => f.endsWith('.md')).sort()) {
+  const files = existsSync(dir) ? readdirSync(dir).filter((f) => f.endsWith('.md')).sort() : [];
+  if (files.length === 0) errors.push(`no lesson files (*.md) in ${dir}`);
+  for (const file of files) {
     try {
       lessons.push(renderLesson(readFileSync(join(dir, file), 'utf8'), file));
     } catch (error) {

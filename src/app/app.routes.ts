@@ -1,5 +1,7 @@
 import { Routes } from '@angular/router';
 
+import { calculatorTitle } from './calculators/calculator-title';
+
 // Every page is its own lazy chunk; the shell (top bar, navigation, footer) is all that loads up front.
 export const routes: Routes = [
   {
@@ -18,6 +20,11 @@ export const routes: Routes = [
     title: 'Calculators',
     loadComponent: () =>
       import('./calculators/calculator-index').then((m) => m.CalculatorIndex),
+  },
+  {
+    path: 'calculators/:id',
+    title: calculatorTitle,
+    loadComponent: () => import('./calculators/calculator-page').then((m) => m.CalculatorPage),
   },
   {
     path: 'sign-in',

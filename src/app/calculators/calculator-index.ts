@@ -1,18 +1,32 @@
 import { ChangeDetectionStrategy, Component } from '@angular/core';
 import { RouterLink } from '@angular/router';
 
-/** Placeholder until the calculator list lands. */
+import { type CalculatorSummary, listCalculators } from '../../../shared/airflow';
+
+interface TopicShelf {
+  readonly topic: string;
+  readonly calculators: readonly CalculatorSummary[];
+}
+
+/** Every calculator, under its topic, in the order the course meets them. */
+function shelves(): TopicShelf[] {
+  const byTopic = new Map<string, CalculatorSummary[]>();
+  for (const calculator of listCalculators()) {
+    const shelf = byTopic.get(calculator.topic) ?? [];
+    shelf.push(calculator);
+    byTopic.set(calculator.topic, shelf);
+  }
+  return [...byTopic].map(([topic, calculators]) => ({ topic, calculators }));
+}
+
+/** The calculator list: a card per calculator, grouped by topic. */
 @Component({
   selector: 'fl-calculator-index',
   imports: [RouterLink],
-  template: `
-    <h1>Calculators</h1>
-    <p class="prose">
-      The calculators are on their way. Each one will take SI or US customary units, show every
-      step with its formula, and give you a link to share. They will be free to use, with no account.
-    </p>
-    <p class="prose"><a routerLink="/">Back to the home page</a></p>
-  `,
+  templateUrl: './calculator-index.html',
+  styleUrl: './calculator-index.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class CalculatorIndex {}
+export class CalculatorIndex {
+  protected readonly shelves = shelves();
+}

@@ -17,6 +17,8 @@ const icons: Readonly<Record<string, string>> = {
   'theme-system':
     `<svg viewBox="0 0 24 24" ${stroke}><circle cx="12" cy="12" r="8"/>` +
     '<path d="M12 4a8 8 0 0 1 0 16z" fill="currentColor"/></svg>',
+  caution:
+    `<svg viewBox="0 0 24 24" ${stroke}><path d="M12 3.5L2.5 20h19z"/><path d="M12 10v4.5M12 17.5v.01"/></svg>`,
 };
 
 /** Registers the shell's icons for <mat-icon svgIcon="…">; the literals above are static and trusted. */
