@@ -1,6 +1,6 @@
 import { join } from 'node:path';
 
-import { describeCalculator, evaluate, exampleRequest } from '../../shared/airflow';
+import { describeCalculator, evaluate, withExampleDefaults } from '../../shared/airflow';
 import { brokenLinks, loadLessonLibrary } from './lesson-library';
 
 // The content test suite: a lesson that would not render, or that states a number the engine
@@ -42,7 +42,7 @@ describe.each(lessons.map((l) => [l.meta.slug, l] as const))('lesson %s', (_slug
   it('embeds only calculators that exist, with presets the engine accepts', () => {
     for (const embed of lesson.embeds) {
       expect(describeCalculator(embed.calculator)).toBeDefined();
-      const request = { inputs: { ...exampleRequest(embed.calculator)?.inputs, ...embed.inputs } };
+      const request = withExampleDefaults(embed.calculator, embed.inputs) ?? { inputs: embed.inputs };
       const outcome = evaluate(embed.calculator, request);
       expect({ calculator: embed.calculator, errors: outcome.ok ? [] : outcome.errors }).toEqual({ calculator: embed.calculator, errors: [] });
     }
@@ -50,7 +50,7 @@ describe.each(lessons.map((l) => [l.meta.slug, l] as const))('lesson %s', (_slug
 
   it('states worked-example results that the engine reproduces within their rounding', () => {
     for (const result of lesson.results) {
-      const request = { inputs: { ...exampleRequest(result.calculator)?.inputs, ...result.inputs }, outputUnits: { [result.output]: result.unit } };
+      const request = { ...(withExampleDefaults(result.calculator, result.inputs) ?? { inputs: result.inputs }), outputUnits: { [result.output]: result.unit } };
       const outcome = evaluate(result.calculator, request);
       const label = `${result.calculator} → ${result.output} = ${result.value} ${result.unit}`;
       expect({ label, errors: outcome.ok ? [] : outcome.errors }).toEqual({ label, errors: [] });

@@ -68,3 +68,22 @@ export function evaluate(id: string, request: CalculationRequest): CalculationOu
     return { ok: false, errors: [{ field: '', message: `The calculation failed: ${(e as Error).message}` }] };
   }
 }
+
+/**
+ * A preset (a lesson's embedded calculator, a result line, a quiz question) over the example:
+ * inputs the preset leaves out take the example's values, except other members of a one-of
+ * group the preset already answers (giving `pressure` drops the example's `height`).
+ */
+export function withExampleDefaults(id: string, preset: Record<string, InputValue>): CalculationRequest | undefined {
+  const def = byId.get(id);
+  if (def === undefined) return undefined;
+  const inputs = structuredClone(exampleInputs(def)) as Record<string, InputValue>;
+  for (const group of toSummaryGroups(id)) {
+    if (group.inputs.some((name) => name in preset)) for (const name of group.inputs) delete inputs[name];
+  }
+  return { inputs: { ...inputs, ...preset } };
+}
+
+function toSummaryGroups(id: string) {
+  return allSummaries().find((s) => s.id === id)?.groups ?? [];
+}

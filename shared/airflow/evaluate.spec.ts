@@ -1,5 +1,5 @@
 import * as fc from 'fast-check';
-import { describeCalculator, evaluate, exampleRequest, listCalculators } from './index';
+import { describeCalculator, evaluate, exampleRequest, listCalculators, withExampleDefaults } from './index';
 import type { CalculationOutcome, CalculationRequest, FieldError, InputValue } from './index';
 import { isUnitOf, parseUnit } from './units';
 
@@ -224,5 +224,23 @@ describe('random invalid input (property)', () => {
       }),
       { numRuns: 300 },
     );
+  });
+});
+
+describe('withExampleDefaults', () => {
+  it('fills what a preset leaves out from the example', () => {
+    const request = withExampleDefaults('flow-at-test-pressure', { flow: { value: 150, unit: 'cfm' } })!;
+    expect(request.inputs['flow']).toEqual({ value: 150, unit: 'cfm' });
+    expect(request.inputs['toPressureDrop']).toEqual(exampleRequest('flow-at-test-pressure')!.inputs['toPressureDrop']);
+  });
+
+  it('drops the other members of a one-of group the preset answers', () => {
+    const request = withExampleDefaults('manometer', { pressure: { value: 7, unit: 'kPa' } })!;
+    expect(request.inputs['height']).toBeUndefined();
+    expect(evaluate('manometer', request).ok).toBe(true);
+  });
+
+  it('knows no unknown calculator', () => {
+    expect(withExampleDefaults('nope', {})).toBeUndefined();
   });
 });

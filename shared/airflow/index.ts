@@ -18,6 +18,6 @@ export type {
   Topic,
   UnitPair,
 } from './types';
-export { describeCalculator, evaluate, exampleRequest, listCalculators } from './catalogue';
+export { describeCalculator, evaluate, exampleRequest, listCalculators, withExampleDefaults } from './catalogue';
 export { convert, DEFAULT_UNITS, isUnitOf, SI_UNIT, UNITS_BY_KIND } from './units';
 export { STANDARD_CONDITIONS, type StandardCondition } from './standard-conditions';
