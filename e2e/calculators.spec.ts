@@ -1,0 +1,171 @@
+import AxeBuilder from '@axe-core/playwright';
+import { expect, test, type Locator, type Page } from '@playwright/test';
+
+// Expected figures are the engine's own (CIPM-2007 moist-air density, shared/airflow), as the
+// page must show them; the engine's tests check those against the published references.
+
+const airDensity = 'Air density from temperature, pressure and humidity';
+const topics = ['Pressure', 'Flow', 'Air density', 'Mass flow', 'Forced induction', 'Sensors and uncertainty'];
+
+function numberField(page: Page, label: string | RegExp): Locator {
+  return page.getByRole('textbox', { name: label, exact: typeof label === 'string' });
+}
+
+function unitPicker(page: Page, label: string): Locator {
+  return page.getByRole('combobox', { name: `Unit for ${label}`, exact: true });
+}
+
+async function chooseUnit(page: Page, label: string, unit: string): Promise<void> {
+  await unitPicker(page, label).click();
+  await page.getByRole('option', { name: unit, exact: true }).click();
+  await expect(unitPicker(page, label)).toContainText(unit);
+}
+
+/** Console errors and uncaught page errors, collected for the whole test. */
+function watchErrors(page: Page): string[] {
+  const errors: string[] = [];
+  page.on('console', (message) => {
+    if (message.type() === 'error') errors.push(message.text());
+  });
+  page.on('pageerror', (error) => errors.push(error.message));
+  return errors;
+}
+
+function results(page: Page): Locator {
+  return page.getByRole('region', { name: 'Results' });
+}
+
+/** The figure in the results row of an output (its first data cell). */
+function resultValue(page: Page, output: string): Locator {
+  return results(page).getByRole('row', { name: new RegExp(`^${output}\\b`) }).getByRole('cell').first();
+}
+
+test('a visitor works out air density, copies the link, and the link opens the same calculation', async ({ page, context, baseURL }) => {
+  await context.grantPermissions(['clipboard-read', 'clipboard-write'], { origin: baseURL });
+  const errors = watchErrors(page);
+  await page.goto('/calculators');
+  for (const topic of topics) {
+    await expect(page.getByRole('heading', { level: 2, name: topic, exact: true })).toBeVisible();
+  }
+  await page.getByRole('link', { name: airDensity }).click();
+  await expect(page.getByRole('heading', { level: 1, name: airDensity })).toBeVisible();
+  await expect(page).toHaveTitle(`${airDensity} · Flowlore`);
+
+  await numberField(page, 'Air temperature').fill('77');
+  await chooseUnit(page, 'Air temperature', '°F');
+  await numberField(page, 'Barometric pressure (absolute)').fill('29.5');
+  await chooseUnit(page, 'Barometric pressure (absolute)', 'inHg');
+  await numberField(page, /^Relative humidity/).fill('40');
+
+  await expect(resultValue(page, 'Air density')).toHaveText('1.162');
+  await expect(resultValue(page, 'Dew point')).toHaveText('283.63');
+  const steps = page.getByRole('region', { name: 'Worked steps' });
+  await expect(steps.getByRole('heading', { level: 3, name: 'Density of moist air (CIPM-2007)' })).toBeVisible();
+  await expect(steps.getByRole('math').first()).toBeAttached();
+  await expect(steps.getByRole('math')).not.toHaveCount(0);
+
+  await page.getByRole('button', { name: 'Copy link' }).click();
+  await expect(page.getByText('Link copied').first()).toBeVisible();
+  const link = await page.evaluate(() => navigator.clipboard.readText());
+  expect(link).toMatch(/\/calculators\/air-density\?.*temperature=77~degF/);
+
+  const opened = await context.newPage();
+  const openedErrors = watchErrors(opened);
+  await opened.goto(link);
+  await expect(opened).toHaveTitle(`${airDensity} · Flowlore`);
+  await expect(resultValue(opened, 'Air density')).toHaveText('1.162');
+  await expect(resultValue(opened, 'Dew point')).toHaveText('283.63');
+  await expect(numberField(opened, 'Air temperature')).toHaveValue('77');
+  await expect(unitPicker(opened, 'Air temperature')).toContainText('°F');
+  await expect(numberField(opened, 'Barometric pressure (absolute)')).toHaveValue('29.5');
+  await expect(unitPicker(opened, 'Barometric pressure (absolute)')).toContainText('inHg');
+  await expect(numberField(opened, /^Relative humidity/)).toHaveValue('40');
+  await expect(opened.getByRole('radio', { name: 'Relative humidity' })).toBeChecked();
+  expect([...errors, ...openedErrors]).toEqual([]);
+});
+
+test('an impossible humidity is refused beside the field, and fixing it brings the result back', async ({ page }) => {
+  // Opened from a link: the message shows at once, on a field nobody has touched yet.
+  await page.goto('/calculators/air-density?temperature=20~degC&pressure=1013.25~hPa&relativeHumidity=150~pct&units=si');
+  const humidity = numberField(page, /^Relative humidity/);
+  await expect(humidity).toHaveAttribute('aria-invalid', 'true');
+  await expect(humidity).toHaveAccessibleDescription(/Relative humidity must be at most 100 %/);
+  await expect(results(page)).toContainText('Fix the marked fields');
+  await expect(results(page).getByRole('row')).toHaveCount(0);
+  await expect(humidity).toHaveValue('150');
+
+  await humidity.fill('50');
+  await expect(resultValue(page, 'Air density')).toHaveText('1.1993');
+  await expect(humidity).toHaveAttribute('aria-invalid', 'false');
+
+  // Typed: the same message, and what was typed stays as typed.
+  await humidity.fill('150');
+  await expect(humidity).toHaveAttribute('aria-invalid', 'true');
+  await expect(humidity).toHaveAccessibleDescription(/Relative humidity must be at most 100 %/);
+  await expect(results(page)).toContainText('Fix the marked fields');
+  await expect(humidity).toHaveValue('150');
+});
+
+test('the US/SI switch converts what was typed and keeps the physical result', async ({ page }) => {
+  await page.goto('/calculators/air-density');
+  await expect(numberField(page, 'Air temperature')).toHaveValue('20');
+  await expect(resultValue(page, 'Air density')).toHaveText('1.1993');
+
+  await page.getByRole('radio', { name: 'US customary' }).click();
+  await expect(numberField(page, 'Air temperature')).toHaveValue('68');
+  await expect(unitPicker(page, 'Air temperature')).toContainText('°F');
+  await expect(numberField(page, 'Barometric pressure (absolute)')).toHaveValue('29.9213');
+  await expect(unitPicker(page, 'Barometric pressure (absolute)')).toContainText('inHg');
+  // 1.1993 kg/m³ is 0.074871 lb/ft³.
+  await expect(resultValue(page, 'Air density')).toHaveText('0.074871');
+  await expect(page.getByRole('combobox', { name: 'Unit for Air density (result)' })).toContainText('lb/ft³');
+
+  await page.getByRole('radio', { name: 'SI', exact: true }).click();
+  await expect(numberField(page, 'Air temperature')).toHaveValue('20');
+  await expect(numberField(page, 'Barometric pressure (absolute)')).toHaveValue('1013.25');
+  await expect(resultValue(page, 'Air density')).toHaveText('1.1993');
+
+  // The choice is remembered: a fresh visit opens in the system picked last.
+  await page.getByRole('radio', { name: 'US customary' }).click();
+  await expect(numberField(page, 'Air temperature')).toHaveValue('68');
+  await page.goto('/calculators/air-density');
+  await expect(numberField(page, 'Air temperature')).toHaveValue('68');
+  await expect(page.getByRole('radio', { name: 'US customary' })).toBeChecked();
+});
+
+test('reset to example fills the worked example back in and shows its result', async ({ page }) => {
+  await page.goto('/calculators/air-density');
+  await numberField(page, 'Air temperature').fill('');
+  await numberField(page, 'Barometric pressure (absolute)').fill('abc');
+  await page.getByRole('radio', { name: 'Dew point' }).click();
+  await expect(results(page)).toContainText('Fix the marked fields');
+
+  await page.getByRole('button', { name: 'Reset to example' }).click();
+  await expect(numberField(page, 'Air temperature')).toHaveValue('20');
+  await expect(numberField(page, 'Barometric pressure (absolute)')).toHaveValue('1013.25');
+  await expect(page.getByRole('radio', { name: 'Relative humidity' })).toBeChecked();
+  await expect(numberField(page, /^Relative humidity/)).toHaveValue('50');
+  await expect(resultValue(page, 'Air density')).toHaveText('1.1993');
+});
+
+test('a calculator page has no serious or critical accessibility violations, in either theme', async ({ page }) => {
+  await page.goto('/calculators/flow-at-test-pressure');
+  await expect(page.getByRole('note').filter({ hasText: 'Safety' })).toContainText('local codes');
+  await expect(resultValue(page, 'Flow')).not.toBeEmpty();
+  await expect(page.getByRole('region', { name: 'Worked steps' }).getByRole('math').first()).toBeAttached();
+  for (const theme of ['Light', 'Dark']) {
+    await page.getByRole('button', { name: /theme/i }).click();
+    await page.getByRole('menuitemradio', { name: theme }).click();
+    await expect(page.getByRole('menu')).toBeHidden();
+    const scan = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze();
+    const blocking = scan.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+    expect(blocking.map((v) => `${theme}: ${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).join(', ')})`)).toEqual([]);
+  }
+});
+
+test('an unknown calculator says so and links back to the list', async ({ page }) => {
+  await page.goto('/calculators/no-such-thing');
+  await expect(page.getByRole('heading', { level: 1, name: 'No such calculator' })).toBeVisible();
+  await page.getByRole('main').getByRole('link', { name: 'See all the calculators' }).click();
+  await expect(page).toHaveURL(/\/calculators$/);
+});

@@ -1,0 +1,56 @@
+import { describeCalculator, type CalculatorSummary } from '../../../shared/airflow';
+import { blankState, calculate, convertToSystem, exampleState, parseTyped } from './form-state';
+
+function calculator(id: string): CalculatorSummary {
+  const summary = describeCalculator(id);
+  if (summary === undefined) throw new Error(`no calculator ${id}`);
+  return summary;
+}
+
+describe('form state', () => {
+  it('reads typed numbers, and refuses what is not one', () => {
+    expect(parseTyped(' 1013.25 ')).toBe(1013.25);
+    expect(parseTyped('101 325')).toBe(101325);
+    expect(parseTyped('−40')).toBe(-40);
+    expect(parseTyped('1.5e3')).toBe(1500);
+    for (const junk of ['', '1,5', '0x10', 'Infinity', '1.2.3', 'abc']) expect(parseTyped(junk)).toBeUndefined();
+  });
+
+  it('converts typed values with the US/SI switch and back', () => {
+    const summary = calculator('air-density');
+    const us = convertToSystem(summary, exampleState(summary, 'si'), 'us');
+    expect(us.quantities['temperature']).toEqual({ text: '68', unit: 'degF' });
+    expect(us.quantities['pressure']).toEqual({ text: '29.9213', unit: 'inHg' });
+    expect(us.outputUnits['density']).toBe('lb/ft^3');
+    const si = convertToSystem(summary, us, 'si');
+    expect(si.quantities['temperature']).toEqual({ text: '20', unit: 'degC' });
+    expect(si.quantities['pressure']).toEqual({ text: '1013.25', unit: 'hPa' });
+  });
+
+  it('converts a temperature difference without the °C/°F offset', () => {
+    const summary = calculator('uncertainty');
+    const us = convertToSystem(summary, exampleState(summary, 'si'), 'us');
+    // 0.5 K is 0.9 °F as an interval (NIST SP 811: 1 K = 1.8 °F for differences).
+    expect(us.quantities['temperatureUncertainty']).toEqual({ text: '0.9', unit: 'degF' });
+  });
+
+  it('files engine messages under the field on screen, and refuses text that is no number', () => {
+    const summary = calculator('mass-flow');
+    const state = blankState(summary, 'si');
+    state.quantities['density'] = { text: '1,2', unit: 'kg/m^3' };
+    const evaluation = calculate(summary, state);
+    expect(evaluation.result).toBeUndefined();
+    expect(evaluation.fieldErrors.get('density')).toMatch(/decimals with a point/);
+    expect(evaluation.fieldErrors.get('volumeFlow')).toBe('Give Volume flow or Mass flow.');
+
+    state.picks['flow'] = 'massFlow';
+    expect(calculate(summary, state).fieldErrors.get('massFlow')).toBe('Give Volume flow or Mass flow.');
+  });
+
+  it('gives the example result with no messages', () => {
+    const summary = calculator('air-density');
+    const evaluation = calculate(summary, exampleState(summary, 'si'));
+    expect(evaluation.messages).toEqual([]);
+    expect(evaluation.result?.outputs['density']?.value).toBeCloseTo(1.1993, 4);
+  });
+});

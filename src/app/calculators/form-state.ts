@@ -1,0 +1,217 @@
+/*
+ * A calculator form's state as plain data, and what can be done with it without Angular:
+ * fill it from the example, move it to the other unit system, and turn it into an engine request
+ * and back into messages per field. The typed FormGroup (calculator-form.ts) holds this shape.
+ */
+import {
+  type CalculationRequest,
+  type CalculationResult,
+  type CalculatorSummary,
+  type FieldError,
+  type InputSummary,
+  type InputValue,
+  convert,
+  evaluate,
+} from '../../../shared/airflow';
+import { type UnitSystem, isUsCustomary } from './unit-system';
+
+/** A quantity as typed: the text is kept as is, so nothing the reader typed is ever lost. */
+export interface QuantityEntry {
+  text: string;
+  unit: string;
+}
+
+export interface FormState {
+  /** Every numeric input, by name. */
+  quantities: Record<string, QuantityEntry>;
+  /** Every option input, by name; '' when none is chosen. */
+  options: Record<string, string>;
+  /** Per one-of group, the member the reader gives. */
+  picks: Record<string, string>;
+  /** Every output's unit, by name. */
+  outputUnits: Record<string, string>;
+}
+
+/** What a form state gives: a result, or the messages that stand in its way. */
+export interface Evaluation {
+  readonly result?: CalculationResult;
+  /** Input name (or `outputUnits.<name>`) → the message to show beside it. */
+  readonly fieldErrors: ReadonlyMap<string, string>;
+  /** Every message, in the engine's order, for the summary in place of the results. */
+  readonly messages: readonly string[];
+}
+
+/** Whether an input is on screen and sent: a one-of member only when it is the picked one. */
+export function isGiven(input: InputSummary, picks: Record<string, string>): boolean {
+  return input.group === undefined || picks[input.group] === input.name;
+}
+
+/** The unit a quantity input starts in for a unit system. */
+export function defaultUnitOf(input: InputSummary, system: UnitSystem): string {
+  return input.defaultUnit?.[system] ?? input.units?.[0] ?? '';
+}
+
+/** Everything empty, units from the system, options at their defaults. */
+export function blankState(summary: CalculatorSummary, system: UnitSystem): FormState {
+  const state: FormState = { quantities: {}, options: {}, picks: {}, outputUnits: {} };
+  for (const input of summary.inputs) {
+    if (input.kind === 'option') {
+      state.options[input.name] = typeof input.default === 'string' ? input.default : '';
+    } else {
+      state.quantities[input.name] = { text: '', unit: defaultUnitOf(input, system) };
+    }
+  }
+  for (const group of summary.groups) state.picks[group.id] = group.inputs[0] ?? '';
+  for (const output of summary.outputs) state.outputUnits[output.name] = output.defaultUnit[system];
+  return state;
+}
+
+/**
+ * The calculator's worked example. Values keep the units the example was written in when those
+ * belong to the chosen system (a barometer read in inHg stays 29.92 inHg in US units); a value in
+ * the other system's units is converted to the input's default unit.
+ */
+export function exampleState(summary: CalculatorSummary, system: UnitSystem): FormState {
+  const state = blankState(summary, system);
+  for (const input of summary.inputs) {
+    const example = input.example;
+    if (example === undefined) continue;
+    if (input.kind === 'option') {
+      if (typeof example === 'string') state.options[input.name] = example;
+      continue;
+    }
+    const given = exampleQuantity(input, example);
+    if (given !== undefined) state.quantities[input.name] = inSystem(input, given, system);
+  }
+  for (const group of summary.groups) {
+    const first = group.inputs.find((name) => summary.inputs.some((i) => i.name === name && i.example !== undefined));
+    if (first !== undefined) state.picks[group.id] = first;
+  }
+  return state;
+}
+
+function exampleQuantity(input: InputSummary, example: InputValue): { value: number; unit: string } | undefined {
+  if (typeof example === 'number') return { value: example, unit: input.kind === 'percent' ? '%' : '' };
+  return typeof example === 'object' ? example : undefined;
+}
+
+function inSystem(input: InputSummary, given: { value: number; unit: string }, system: UnitSystem): QuantityEntry {
+  const target = defaultUnitOf(input, system);
+  const otherSystem = system === 'si' ? isUsCustomary(given.unit) : !isUsCustomary(given.unit);
+  const neutral = input.defaultUnit === undefined || input.defaultUnit.si === input.defaultUnit.us;
+  if (neutral || !otherSystem || given.unit === target) return { text: String(given.value), unit: given.unit };
+  const converted = convertQuantity(input, given.value, given.unit, target);
+  return converted === undefined
+    ? { text: String(given.value), unit: given.unit }
+    : { text: formatTyped(converted), unit: target };
+}
+
+/**
+ * The US/SI switch: every quantity moves to its default unit for the system with its value
+ * converted, so the physical quantity stays the same; every output moves to the system's unit.
+ * Text that is not a number keeps its characters.
+ */
+export function convertToSystem(summary: CalculatorSummary, state: FormState, system: UnitSystem): FormState {
+  const quantities: Record<string, QuantityEntry> = {};
+  for (const input of summary.inputs) {
+    const entry = state.quantities[input.name];
+    if (entry === undefined) continue;
+    const target = defaultUnitOf(input, system);
+    const value = parseTyped(entry.text);
+    if (value === undefined || entry.unit === target) {
+      quantities[input.name] = value === undefined ? { text: entry.text, unit: target } : entry;
+      continue;
+    }
+    const converted = convertQuantity(input, value, entry.unit, target);
+    quantities[input.name] = converted === undefined ? entry : { text: formatTyped(converted), unit: target };
+  }
+  const outputUnits: Record<string, string> = {};
+  for (const output of summary.outputs) outputUnits[output.name] = output.defaultUnit[system];
+  return { ...state, quantities, outputUnits };
+}
+
+/** The engine's `convert`, read as an interval for temperature differences (1 K = 1.8 °F, no offset). */
+function convertQuantity(input: InputSummary, value: number, from: string, to: string): number | undefined {
+  try {
+    return input.kind === 'temperatureDifference'
+      ? convert(value, from, to) - convert(0, from, to)
+      : convert(value, from, to);
+  } catch {
+    return undefined;
+  }
+}
+
+/** A converted value as the reader would type it: six significant figures, no trailing noise. */
+export function formatTyped(value: number): string {
+  return String(Number(value.toPrecision(6)));
+}
+
+const numberPattern = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+
+/** A typed number: spaces between digit groups and a typographic minus are allowed; '' and junk are not. */
+export function parseTyped(text: string): number | undefined {
+  const compact = text.trim().replace(/[\s\u00a0\u202f]/g, '').replace(/^\u2212/, '-');
+  if (!numberPattern.test(compact)) return undefined;
+  const value = Number(compact);
+  return Number.isFinite(value) ? value : undefined;
+}
+
+function typingProblem(input: InputSummary, text: string): string {
+  return text.includes(',')
+    ? `${input.label}: write decimals with a point (1.5) and no thousands separators.`
+    : `${input.label} must be a number, such as 20, 0.75 or 1.5e3.`;
+}
+
+/**
+ * The engine request for a state: every given input, and the output units that differ from the
+ * engine's own (so no needless "express in the units asked for" step). Text that is not a number
+ * is left out of the request and reported against its field instead.
+ */
+export function toRequest(summary: CalculatorSummary, state: FormState): { request: CalculationRequest; errors: FieldError[] } {
+  const inputs: Record<string, InputValue> = {};
+  const errors: FieldError[] = [];
+  for (const input of summary.inputs) {
+    if (!isGiven(input, state.picks)) continue;
+    if (input.kind === 'option') {
+      const choice = state.options[input.name] ?? '';
+      if (choice !== '') inputs[input.name] = choice;
+      continue;
+    }
+    const entry = state.quantities[input.name];
+    if (entry === undefined || entry.text.trim() === '') continue;
+    const value = parseTyped(entry.text);
+    if (value === undefined) errors.push({ field: input.name, message: typingProblem(input, entry.text) });
+    else inputs[input.name] = { value, unit: entry.unit };
+  }
+  const outputUnits: Record<string, string> = {};
+  for (const output of summary.outputs) {
+    const unit = state.outputUnits[output.name];
+    if (unit !== undefined && unit !== output.defaultUnit.si) outputUnits[output.name] = unit;
+  }
+  return { request: { inputs, outputUnits }, errors };
+}
+
+/** Runs the engine in the browser and files every message under the field it names. */
+export function calculate(summary: CalculatorSummary, state: FormState): Evaluation {
+  const { request, errors } = toRequest(summary, state);
+  const outcome = evaluate(summary.id, request);
+  const all = outcome.ok ? errors : [...errors, ...outcome.errors];
+  if (outcome.ok && all.length === 0) return { result: outcome.result, fieldErrors: new Map(), messages: [] };
+  const fieldErrors = new Map<string, string>();
+  const messages: string[] = [];
+  for (const error of all) {
+    const field = fieldShowing(summary, state, error.field);
+    if (field !== undefined && fieldErrors.has(field)) continue;
+    if (field !== undefined) fieldErrors.set(field, error.message);
+    if (!messages.includes(error.message)) messages.push(error.message);
+  }
+  return { fieldErrors, messages };
+}
+
+/** Where a message goes: its input, or the picked member when it names a hidden one of a group. */
+function fieldShowing(summary: CalculatorSummary, state: FormState, field: string): string | undefined {
+  if (field.startsWith('outputUnits.')) return field;
+  const input = summary.inputs.find((i) => i.name === field);
+  if (input === undefined) return undefined;
+  return isGiven(input, state.picks) || input.group === undefined ? input.name : state.picks[input.group];
+}
