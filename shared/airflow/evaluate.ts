@@ -216,7 +216,9 @@ function inputConversionStep(compiled: CompiledInput[], given: Map<string, Given
     const { unit, raw } = g.conversion;
     const sym = c.spec.symbol;
     const siText = SI_UNIT[kind];
-    formula.push(unitFactorTex(unit, kind));
+    // One line per conversion factor: two inputs in the same unit share it.
+    const factor = unitFactorTex(unit, kind);
+    if (!formula.includes(factor)) formula.push(factor);
     if (kind !== 'temperatureDifference' && unit.offset !== 0) {
       const shift = num(unit.offset / unit.scale, 6);
       const scale = unit.scale === 1 ? '' : ` \\times ${num(unit.scale, 7)}`;
