@@ -18,6 +18,7 @@ async function main(): Promise<void> {
   await connectWithRetry(dataSource, logger);
 
   const lessons = new LessonStore(config.contentDir, logger);
+  lessons.current(); // render the course now, not on the first reader's request
   if (config.env === 'development') lessons.watch();
   const app = createApp({ config, dataSource, logger, lessons });
   const server = createServer(app);

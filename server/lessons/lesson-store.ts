@@ -4,15 +4,16 @@ import type { Logger } from 'pino';
 
 import { loadLessonLibrary, type LessonLibrary } from './lesson-library';
 
-/** Holds the rendered course; in development it re-renders when a lesson file changes. */
+/**
+ * Holds the rendered course: rendered on first use (main.ts asks at start-up, so the first
+ * reader never waits), re-rendered in development when a lesson file changes.
+ */
 export class LessonStore {
-  private library: LessonLibrary;
+  private library: LessonLibrary | undefined;
 
-  constructor(private readonly dir: string, private readonly logger?: Logger) {
-    this.library = this.load();
-  }
+  constructor(private readonly dir: string, private readonly logger?: Logger) {}
 
-  readonly current = (): LessonLibrary => this.library;
+  readonly current = (): LessonLibrary => (this.library ??= this.load());
 
   /** Re-render on change (development only: production renders once at start-up). */
   watch(): () => void {
