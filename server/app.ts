@@ -7,12 +7,27 @@ import type { Logger } from 'pino';
 import type { DataSource } from 'typeorm';
 
 import type { Config } from './config';
+import { demoAccounts } from './accounts/demo-accounts';
+import { profileRouter } from './accounts/profile.router';
+import { adminRouter } from './admin/admin.router';
+import { AdminService } from './admin/admin.service';
+import { authRouter } from './auth/auth.router';
+import { AuthService } from './auth/auth.service';
+import { csrfGuard } from './auth/csrf';
+import { passportFor } from './auth/passport-setup';
+import { PasswordHasher } from './auth/passwords';
+import { DEFAULT_RATE_LIMITS, type AuthRateLimits } from './auth/rate-limits';
+import { sessionCookieName, sessionMiddleware, sessionTimeouts } from './auth/session';
 import { calculatorsRouter } from './calculators/calculators.router';
+import { cohortsRouter } from './cohorts/cohorts.router';
+import { CohortsService } from './cohorts/cohorts.service';
 import { healthRouter } from './health/health.router';
 import { apiNotFound, problemHandler } from './http/error-handler';
 import { requestLog } from './http/request-log';
 import { LessonStore } from './lessons/lesson-store';
 import { lessonsRouter } from './lessons/lessons.router';
+import { Mailer, smtpTransport } from './mail/mailer';
+import { shopsRouter } from './shops/shops.router';
 
 export interface AppDependencies {
   readonly config: Config;
@@ -20,10 +35,24 @@ export interface AppDependencies {
   readonly logger: Logger;
   /** The rendered course; made from `config.contentDir` when not given. */
   readonly lessons?: LessonStore;
+  /** Sends and records e-mail; made from `config.mail` when not given. */
+  readonly mailer?: Mailer;
+  /** Per-address limits of sign-in, sign-up and reset (tests use their own key prefix). */
+  readonly rateLimits?: AuthRateLimits;
+  /** The clock for token expiry, session age and sign-in delays. */
+  readonly now?: () => Date;
 }
 
 /** Builds the Express app (API + the built Angular client); it does not listen. */
-export function createApp({ config, dataSource, logger, lessons = new LessonStore(config.contentDir, logger) }: AppDependencies): Express {
+export function createApp({
+  config,
+  dataSource,
+  logger,
+  lessons = new LessonStore(config.contentDir, logger),
+  mailer = new Mailer(smtpTransport(config.mail), config.mail.from, dataSource, logger),
+  rateLimits = DEFAULT_RATE_LIMITS,
+  now = () => new Date(),
+}: AppDependencies): Express {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', config.trustProxyHops);
@@ -33,8 +62,36 @@ export function createApp({ config, dataSource, logger, lessons = new LessonStor
   const api = express.Router();
   api.use(express.json({ limit: '100kb' }));
   api.use('/health', healthRouter(dataSource));
+  // Ahead of sessions and CSRF on purpose: evaluating a calculator changes nothing (POST only because
+  // the inputs are a JSON body), visitors use it, and it needs no identity, so it is CSRF-exempt.
   api.use('/calculators', calculatorsRouter());
+
+  // Everything below knows who is calling. Sessions in PostgreSQL, then the signed-in user, then
+  // CSRF checks on every POST/PUT/PATCH/DELETE (Angular's XSRF-TOKEN cookie / X-XSRF-TOKEN header).
+  const hasher = new PasswordHasher(config.passwordHashCost);
+  const auth = new AuthService({ dataSource, hasher, mailer, logger, appBaseUrl: config.appBaseUrl, now });
+  const passport = passportFor(dataSource, auth);
+  const csrf = csrfGuard(config);
+  api.use(sessionMiddleware(config, dataSource), sessionTimeouts(now), passport.initialize, passport.session, csrf.protect);
+
   api.use(lessonsRouter(lessons.current));
+  api.use(
+    '/auth',
+    authRouter({
+      auth,
+      passport,
+      csrf,
+      dataSource,
+      limits: rateLimits,
+      sessionCookie: sessionCookieName(config),
+      now,
+      demoAccounts: config.demoMode ? demoAccounts() : undefined,
+    }),
+  );
+  api.use('/account', profileRouter(dataSource));
+  api.use('/admin', adminRouter(new AdminService(dataSource, now)));
+  api.use('/cohorts', cohortsRouter(new CohortsService(dataSource), dataSource));
+  api.use('/shops', shopsRouter(dataSource));
   api.use(apiNotFound);
   app.use('/api', api);
 

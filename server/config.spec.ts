@@ -9,8 +9,27 @@ describe('loadConfig', () => {
   });
 
   it('reads the environment', () => {
-    const config = loadConfig({ DATABASE_URL: url, PORT: '8080', HOST: '0.0.0.0', TRUST_PROXY_HOPS: '2', NODE_ENV: 'production' });
+    const config = loadConfig({ DATABASE_URL: url, PORT: '8080', HOST: '0.0.0.0', TRUST_PROXY_HOPS: '2', NODE_ENV: 'production', SESSION_SECRET: 's'.repeat(40) });
     expect(config).toMatchObject({ port: 8080, host: '0.0.0.0', trustProxyHops: 2, env: 'production' });
+  });
+
+  it('requires a session secret in production only', () => {
+    expect(() => loadConfig({ DATABASE_URL: url, NODE_ENV: 'production' })).toThrow(/SESSION_SECRET/);
+    expect(loadConfig({ DATABASE_URL: url }).sessionSecret.length).toBeGreaterThanOrEqual(32);
+  });
+
+  it('allows a bcrypt cost below 12 in tests only', () => {
+    expect(loadConfig({ DATABASE_URL: url }).passwordHashCost).toBe(12);
+    expect(() => loadConfig({ DATABASE_URL: url, PASSWORD_HASH_COST: '4' })).toThrow(/PASSWORD_HASH_COST/);
+    expect(loadConfig({ DATABASE_URL: url, NODE_ENV: 'test', PASSWORD_HASH_COST: '4' }).passwordHashCost).toBe(4);
+  });
+
+  it('reads the mail settings and the demo flag', () => {
+    const config = loadConfig({ DATABASE_URL: url, SMTP_PORT: '2025', SMTP_SECURE: 'false', DEMO_MODE: 'true', APP_BASE_URL: 'https://flowlore.example/' });
+    expect(config.mail).toMatchObject({ host: '127.0.0.1', port: 2025, secure: false });
+    expect(config.demoMode).toBe(true);
+    expect(config.appBaseUrl).toBe('https://flowlore.example');
+    expect(loadConfig({ DATABASE_URL: url }).demoMode).toBe(false);
   });
 
   it('names every bad setting at once', () => {

@@ -17,7 +17,33 @@ export interface Config {
   readonly contentDir: string;
   /** Seconds to let in-flight requests finish on shutdown before closing them. */
   readonly shutdownGraceSeconds: number;
+  /** Signs session cookies and CSRF tokens; required in production. */
+  readonly sessionSecret: string;
+  /** bcrypt cost factor for password hashes (12 or more outside tests). */
+  readonly passwordHashCost: number;
+  /** Lists the demo sign-ins on GET /api/auth/demo-accounts (the demo scenario only). */
+  readonly demoMode: boolean;
+  /** Where links in e-mails point (the public address of the app, no trailing slash). */
+  readonly appBaseUrl: string;
+  readonly mail: MailConfig;
 }
+
+export interface MailConfig {
+  readonly host: string;
+  readonly port: number;
+  /** TLS from the first byte (port 465); otherwise STARTTLS is used when the server offers it. */
+  readonly secure: boolean;
+  readonly user?: string;
+  readonly pass?: string;
+  readonly from: string;
+}
+
+const DEV_SESSION_SECRET = 'flowlore-development-session-secret-not-for-production';
+
+const flag = z
+  .enum(['true', 'false', '1', '0', 'yes', 'no'])
+  .transform((value) => value === 'true' || value === '1' || value === 'yes');
+
 
 const schema = z.object({
   NODE_ENV: z.enum(['development', 'test', 'production']).default('development'),
@@ -29,6 +55,23 @@ const schema = z.object({
   CLIENT_DIR: z.string().min(1).default('dist/client/browser'),
   CONTENT_DIR: z.string().min(1).default('content/lessons'),
   SHUTDOWN_GRACE_SECONDS: z.coerce.number().positive().default(10),
+  SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters').optional(),
+  PASSWORD_HASH_COST: z.coerce.number().int().min(4).max(15).default(12),
+  DEMO_MODE: flag.default(false),
+  APP_BASE_URL: z.url({ protocol: /^https?$/ }).optional(),
+  SMTP_HOST: z.string().min(1).default('127.0.0.1'),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(1025),
+  SMTP_SECURE: flag.default(false),
+  SMTP_USER: z.string().min(1).optional(),
+  SMTP_PASS: z.string().min(1).optional(),
+  MAIL_FROM: z.string().min(3).default('Flowlore <no-reply@flowlore.test>'),
+}).superRefine((value, ctx) => {
+  if (value.NODE_ENV === 'production' && !value.SESSION_SECRET) {
+    ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'SESSION_SECRET is required in production' });
+  }
+  if (value.NODE_ENV !== 'test' && value.PASSWORD_HASH_COST < 12) {
+    ctx.addIssue({ code: 'custom', path: ['PASSWORD_HASH_COST'], message: 'PASSWORD_HASH_COST below 12 is allowed in tests only' });
+  }
 });
 
 export class ConfigError extends Error {}
@@ -50,5 +93,17 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     clientDir: resolve(value.CLIENT_DIR),
     contentDir: resolve(value.CONTENT_DIR),
     shutdownGraceSeconds: value.SHUTDOWN_GRACE_SECONDS,
+    sessionSecret: value.SESSION_SECRET ?? DEV_SESSION_SECRET,
+    passwordHashCost: value.PASSWORD_HASH_COST,
+    demoMode: value.DEMO_MODE,
+    appBaseUrl: (value.APP_BASE_URL ?? `http://${value.HOST === '0.0.0.0' ? '127.0.0.1' : value.HOST}:${value.PORT}`).replace(/\/+$/, ''),
+    mail: {
+      host: value.SMTP_HOST,
+      port: value.SMTP_PORT,
+      secure: value.SMTP_SECURE,
+      user: value.SMTP_USER,
+      pass: value.SMTP_PASS,
+      from: value.MAIL_FROM,
+    },
   };
 }

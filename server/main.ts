@@ -9,6 +9,7 @@ import { loadConfig } from './config';
 import { createDataSource } from './database/data-source';
 import { LessonStore } from './lessons/lesson-store';
 import { createLogger } from './logger';
+import { Mailer, smtpTransport } from './mail/mailer';
 
 /** Starts the API and the client on one port; stops gracefully on SIGINT/SIGTERM. */
 async function main(): Promise<void> {
@@ -20,7 +21,8 @@ async function main(): Promise<void> {
   const lessons = new LessonStore(config.contentDir, logger);
   lessons.current(); // render the course now, not on the first reader's request
   if (config.env === 'development') lessons.watch();
-  const app = createApp({ config, dataSource, logger, lessons });
+  const mailer = new Mailer(smtpTransport(config.mail), config.mail.from, dataSource, logger);
+  const app = createApp({ config, dataSource, logger, lessons, mailer });
   const server = createServer(app);
   server.listen(config.port, config.host, () => {
     const address = server.address();
@@ -40,6 +42,7 @@ async function main(): Promise<void> {
     }, config.shutdownGraceSeconds * 1000);
     force.unref();
     server.close(async () => {
+      await mailer.idle();
       await dataSource.destroy().catch((err: unknown) => logger.warn({ err }, 'closing the database pool failed'));
       logger.info('stopped');
       process.exit(0);

@@ -25,6 +25,9 @@ export function createDataSource({ url, logger, poolSize = 10, applicationName =
     migrationsTableName: 'schema_migration',
     migrationsTransactionMode: 'each',
     synchronize: false,
+    // Ids default to gen_random_uuid() (built into PostgreSQL 13+); no extension is needed or installed.
+    uuidExtension: 'pgcrypto',
+    installExtensions: false,
     logger: logger ? new PinoTypeOrmLogger(logger) : undefined,
     logging: ['error', 'warn', 'migration'],
     // Fail fast while the database is away so health checks answer quickly instead of hanging.

@@ -1,4 +1,11 @@
+import { User } from '../accounts/user.entity';
+import { AuditEntry } from '../admin/audit-entry.entity';
+import { AccountToken } from '../auth/account-token.entity';
+import { CohortMember } from '../cohorts/cohort-member.entity';
+import { Cohort } from '../cohorts/cohort.entity';
+import { OutboxMessage } from '../mail/outbox-message.entity';
+import { Shop } from '../shops/shop.entity';
 import { SeedRun } from './seed-run.entity';
 
 /** Every entity the DataSource knows; feature folders add theirs here. */
-export const entities = [SeedRun];
+export const entities = [SeedRun, User, Shop, Cohort, CohortMember, AccountToken, OutboxMessage, AuditEntry];

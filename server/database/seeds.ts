@@ -1,5 +1,6 @@
 import type { DataSource, EntityManager } from 'typeorm';
 
+import { demoAccountsSeed } from '../accounts/demo-accounts';
 import { SeedRun } from './seed-run.entity';
 
 /** A named, versioned set of rows; applied once per database, inside one transaction. */
@@ -10,7 +11,7 @@ export interface SeedSet {
 }
 
 /** The demo scenario's seed sets, in order. Feature issues register theirs here. */
-export const demoSeedSets: readonly SeedSet[] = [];
+export const demoSeedSets: readonly SeedSet[] = [demoAccountsSeed];
 
 /** Applies each seed set not yet recorded at its version; returns the names applied now. */
 export async function runSeeds(dataSource: DataSource, sets: readonly SeedSet[] = demoSeedSets): Promise<string[]> {

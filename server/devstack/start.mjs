@@ -2,6 +2,7 @@
 // migrates, seeds the demo scenario, builds the app and serves it; Ctrl-C stops it all cleanly.
 import { spawn } from 'node:child_process';
 
+import { startMailCatcher } from './mail-catcher.mjs';
 import { log, run } from './process.mjs';
 import { ensureNpmDependencies } from './npm-deps.mjs';
 import { loadDotEnv, root } from './paths.mjs';
@@ -20,7 +21,28 @@ async function start() {
     databaseUrl = db.url;
     stopDatabase = db.stop;
   }
-  const env = { ...process.env, DATABASE_URL: databaseUrl, NODE_ENV: process.env.NODE_ENV ?? 'development' };
+  // Mail goes to the local catcher unless SMTP_HOST points at a real server.
+  let stopMail = async () => {};
+  const mailEnv = {};
+  if (!process.env.SMTP_HOST) {
+    const catcher = await startMailCatcher({
+      smtpPort: Number(process.env.MAILDEV_SMTP_PORT ?? 1025),
+      webPort: Number(process.env.MAILDEV_WEB_PORT ?? 1080),
+    }).catch(async (error) => {
+      await stopDatabase();
+      throw error;
+    });
+    stopMail = catcher.stop;
+    Object.assign(mailEnv, { SMTP_HOST: catcher.smtpHost, SMTP_PORT: String(catcher.smtpPort), SMTP_SECURE: 'false', MAILDEV_API_URL: catcher.apiUrl });
+  }
+  const env = {
+    ...process.env,
+    ...mailEnv,
+    DATABASE_URL: databaseUrl,
+    NODE_ENV: process.env.NODE_ENV ?? 'development',
+    // `npm start` is the demo: the sign-in page lists the demo accounts.
+    DEMO_MODE: process.env.DEMO_MODE ?? 'true',
+  };
 
   let server;
   let interrupted = false;
@@ -41,6 +63,7 @@ async function start() {
     server = spawn('node', ['dist/api/server/main.js'], { cwd: root, env, stdio: 'inherit' });
     return await new Promise((resolve) => server.on('exit', (code, signal) => resolve(code ?? (signal ? 0 : 1))));
   } finally {
+    await stopMail();
     await stopDatabase();
   }
 }

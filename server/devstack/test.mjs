@@ -2,6 +2,7 @@
 // every test: jest (shared + server, against real PostgreSQL) and Playwright (Debian Chromium).
 import { existsSync } from 'node:fs';
 
+import { startMailCatcher } from './mail-catcher.mjs';
 import { aptInstall, log, run } from './process.mjs';
 import { ensureNpmDependencies } from './npm-deps.mjs';
 import { root } from './paths.mjs';
@@ -14,8 +15,20 @@ async function test() {
 
   const { openLocalDatabase } = await import('./local-database.mjs');
   const db = await openLocalDatabase('flowlore_test', { recreate: true });
+  // Its own catcher on other ports than `npm start`'s, so both can run at once; tests read it over its API.
+  const mail = await startMailCatcher({
+    smtpPort: Number(process.env.TEST_MAILDEV_SMTP_PORT ?? 2025),
+    webPort: Number(process.env.TEST_MAILDEV_WEB_PORT ?? 2080),
+  }).catch(async (error) => {
+    await db.stop();
+    throw error;
+  });
   const env = {
     ...process.env,
+    SMTP_HOST: mail.smtpHost,
+    SMTP_PORT: String(mail.smtpPort),
+    SMTP_SECURE: 'false',
+    MAILDEV_API_URL: mail.apiUrl,
     NODE_ENV: 'test',
     DATABASE_URL: db.url,
     TEST_ADMIN_DATABASE_URL: db.adminUrl,
@@ -40,6 +53,7 @@ async function test() {
       await step('browser tests (Playwright)', 'npx', ['playwright', 'test', '-c', 'e2e/playwright.config.ts']);
     }
   } finally {
+    await mail.stop();
     await db.stop();
   }
   if (failures.length) {

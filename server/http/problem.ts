@@ -41,6 +41,18 @@ export class HttpProblem extends Error {
     return new HttpProblem(400, 'Bad request', detail, errors);
   }
 
+  static unauthorized(detail = 'Sign in to do this.'): HttpProblem {
+    return new HttpProblem(401, 'Unauthorized', detail);
+  }
+
+  static forbidden(detail = 'Your account may not do this.'): HttpProblem {
+    return new HttpProblem(403, 'Forbidden', detail);
+  }
+
+  static conflict(detail: string): HttpProblem {
+    return new HttpProblem(409, 'Conflict', detail);
+  }
+
   static notFound(detail: string): HttpProblem {
     return new HttpProblem(404, 'Not found', detail);
   }

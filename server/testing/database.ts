@@ -14,7 +14,9 @@ export function testDatabaseUrl(): string {
 }
 
 export function testConfig(overrides: Partial<Config> = {}): Config {
-  return { ...loadConfig({ DATABASE_URL: testDatabaseUrl(), NODE_ENV: 'test', LOG_LEVEL: 'silent' }), ...overrides };
+  const env = process.env;
+  const mail = { SMTP_HOST: env['SMTP_HOST'], SMTP_PORT: env['SMTP_PORT'] };
+  return { ...loadConfig({ DATABASE_URL: testDatabaseUrl(), NODE_ENV: 'test', LOG_LEVEL: 'silent', ...mail }), ...overrides };
 }
 
 export const silentLogger = pino({ level: 'silent' });

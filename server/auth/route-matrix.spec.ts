@@ -1,0 +1,151 @@
+import { randomUUID } from 'node:crypto';
+
+import type { DataSource } from 'typeorm';
+
+import { exampleRequest } from '../../shared/airflow';
+import type { User } from '../accounts/user.entity';
+import { Cohort } from '../cohorts/cohort.entity';
+import { listRoutes } from '../http/route-list';
+import { accountsTestApp, Browser, createShopOwner, createUser, migratedTestDataSource, signedIn, uniqueEmail, type AccountsTestApp } from '../testing/accounts';
+
+/**
+ * Every API route × every kind of caller, with the status each must get. The table must name
+ * every route the app has: a route added without a row fails the first test.
+ * Columns: visitor, apprentice, instructor (owns the cohort), shop owner (owns the shop), admin,
+ * outsider (an instructor with a cohort of their own, not this one).
+ */
+type Actor = 'visitor' | 'apprentice' | 'instructor' | 'owner' | 'admin' | 'outsider';
+const ACTORS: Actor[] = ['visitor', 'apprentice', 'instructor', 'owner', 'admin', 'outsider'];
+
+interface Fixture {
+  cohortId: string;
+  targetUserId: string;
+  memberToAdd: string;
+  users: Record<Exclude<Actor, 'visitor'>, User>;
+}
+
+interface Row {
+  request: (f: Fixture, actor: Actor) => { method: 'get' | 'post' | 'patch' | 'delete'; path: string; body?: object };
+  expect: [visitor: number, apprentice: number, instructor: number, owner: number, admin: number, outsider: number];
+}
+
+const get = (path: string) => () => ({ method: 'get' as const, path });
+
+const MATRIX: Record<string, Row> = {
+  'GET /api/health': { request: get('/api/health'), expect: [200, 200, 200, 200, 200, 200] },
+  'GET /api/calculators': { request: get('/api/calculators'), expect: [200, 200, 200, 200, 200, 200] },
+  'GET /api/calculators/:id': { request: get('/api/calculators/mass-flow'), expect: [200, 200, 200, 200, 200, 200] },
+  'POST /api/calculators/:id': {
+    request: () => ({ method: 'post', path: '/api/calculators/mass-flow', body: exampleRequest('mass-flow')! }),
+    expect: [200, 200, 200, 200, 200, 200],
+  },
+  'GET /api/lessons': { request: get('/api/lessons'), expect: [200, 200, 200, 200, 200, 200] },
+  // The test app has no lessons, so a lesson page is a 404 for everyone (public route: no 401/403).
+  'GET /api/lessons/:slug': { request: get('/api/lessons/pressure'), expect: [404, 404, 404, 404, 404, 404] },
+  'GET /api/glossary': { request: get('/api/glossary'), expect: [200, 200, 200, 200, 200, 200] },
+
+  'GET /api/auth/me': { request: get('/api/auth/me'), expect: [200, 200, 200, 200, 200, 200] },
+  'GET /api/auth/csrf': { request: get('/api/auth/csrf'), expect: [200, 200, 200, 200, 200, 200] },
+  // DEMO_MODE is off in tests (and by default).
+  'GET /api/auth/demo-accounts': { request: get('/api/auth/demo-accounts'), expect: [404, 404, 404, 404, 404, 404] },
+  'POST /api/auth/sign-up': {
+    request: () => ({ method: 'post', path: '/api/auth/sign-up', body: { accountType: 'apprentice', email: uniqueEmail('matrix'), displayName: 'Matrix', password: 'matrix sign-up passphrase' } }),
+    expect: [202, 202, 202, 202, 202, 202],
+  },
+  'POST /api/auth/sign-in': {
+    request: () => ({ method: 'post', path: '/api/auth/sign-in', body: { email: uniqueEmail('nobody'), password: 'not a real password' } }),
+    expect: [401, 401, 401, 401, 401, 401],
+  },
+  'POST /api/auth/sign-out': { request: () => ({ method: 'post', path: '/api/auth/sign-out' }), expect: [204, 204, 204, 204, 204, 204] },
+  'POST /api/auth/verify': { request: () => ({ method: 'post', path: '/api/auth/verify', body: { token: 'x'.repeat(43) } }), expect: [400, 400, 400, 400, 400, 400] },
+  'POST /api/auth/forgot-password': {
+    request: () => ({ method: 'post', path: '/api/auth/forgot-password', body: { email: uniqueEmail('nobody') } }),
+    expect: [202, 202, 202, 202, 202, 202],
+  },
+  'POST /api/auth/reset-password': {
+    request: () => ({ method: 'post', path: '/api/auth/reset-password', body: { token: 'x'.repeat(43), password: 'a new long passphrase' } }),
+    expect: [400, 400, 400, 400, 400, 400],
+  },
+  // Signed in: 400 because the current password sent is wrong (the guard let it through).
+  'POST /api/auth/change-password': {
+    request: () => ({ method: 'post', path: '/api/auth/change-password', body: { currentPassword: 'not it', newPassword: 'a new long passphrase' } }),
+    expect: [401, 400, 400, 400, 400, 400],
+  },
+  'PATCH /api/account/profile': {
+    request: () => ({ method: 'patch', path: '/api/account/profile', body: { displayName: 'Renamed in the matrix' } }),
+    expect: [401, 200, 200, 200, 200, 200],
+  },
+
+  'GET /api/admin/users': { request: get('/api/admin/users?role=admin&sort=email&order=asc'), expect: [401, 403, 403, 403, 200, 403] },
+  'PATCH /api/admin/users/:id': {
+    request: (f) => ({ method: 'patch', path: `/api/admin/users/${f.targetUserId}`, body: { role: 'apprentice' } }),
+    expect: [401, 403, 403, 403, 200, 403],
+  },
+  'GET /api/admin/outbox': { request: get('/api/admin/outbox'), expect: [401, 403, 403, 403, 200, 403] },
+  'GET /api/admin/audit': { request: get('/api/admin/audit'), expect: [401, 403, 403, 403, 200, 403] },
+
+  'GET /api/cohorts': { request: get('/api/cohorts'), expect: [401, 403, 200, 403, 200, 200] },
+  'POST /api/cohorts': { request: () => ({ method: 'post', path: '/api/cohorts', body: { name: 'Matrix cohort' } }), expect: [401, 403, 201, 403, 403, 201] },
+  'GET /api/cohorts/:id': { request: (f) => ({ method: 'get', path: `/api/cohorts/${f.cohortId}` }), expect: [401, 403, 200, 403, 200, 403] },
+  'POST /api/cohorts/:id/members': {
+    request: (f) => ({ method: 'post', path: `/api/cohorts/${f.cohortId}/members`, body: { userId: f.memberToAdd } }),
+    expect: [401, 403, 201, 403, 201, 403],
+  },
+  // Signed in with the right: 404 because that apprentice is not a member (the guard let it through).
+  'DELETE /api/cohorts/:id/members/:userId': {
+    request: (f) => ({ method: 'delete', path: `/api/cohorts/${f.cohortId}/members/${randomUUID()}` }),
+    expect: [401, 403, 404, 403, 404, 403],
+  },
+
+  'GET /api/shops/mine': { request: get('/api/shops/mine'), expect: [401, 403, 403, 200, 403, 403] },
+};
+
+describe('route-by-role matrix', () => {
+  let dataSource: DataSource;
+  let t: AccountsTestApp;
+  let fixture: Fixture;
+
+  beforeAll(async () => {
+    dataSource = await migratedTestDataSource();
+    t = accountsTestApp(dataSource);
+    const { owner, shop } = await createShopOwner(dataSource);
+    const users = {
+      apprentice: await createUser(dataSource, { role: 'apprentice', shopId: shop.id }),
+      instructor: await createUser(dataSource, { role: 'instructor' }),
+      owner,
+      admin: await createUser(dataSource, { role: 'admin' }),
+      outsider: await createUser(dataSource, { role: 'instructor' }),
+    };
+    const cohort = await dataSource.getRepository(Cohort).save({ name: 'Matrix home cohort', instructorId: users.instructor.id });
+    await dataSource.getRepository(Cohort).save({ name: 'Outsider cohort', instructorId: users.outsider.id });
+    fixture = {
+      cohortId: cohort.id,
+      targetUserId: (await createUser(dataSource)).id,
+      memberToAdd: (await createUser(dataSource)).id,
+      users,
+    };
+  });
+
+  afterAll(async () => {
+    await t.mailer.idle();
+    await dataSource.destroy();
+  });
+
+  it('has a row for every API route the app answers, and no row for a route it lacks', () => {
+    const routes = listRoutes(t.app)
+      .filter((r) => r.path.startsWith('/api/'))
+      .map((r) => `${r.method} ${r.path}`)
+      .sort();
+    expect(routes).toEqual(Object.keys(MATRIX).sort());
+  });
+
+  describe.each(Object.entries(MATRIX))('%s', (_route, row) => {
+    it.each(ACTORS.map((actor, i) => [actor, row.expect[i]] as const))('as %s → %i', async (actor, expected) => {
+      const browser = actor === 'visitor' ? new Browser(t.app) : await signedIn(t.app, fixture.users[actor]);
+      const { method, path, body } = row.request(fixture, actor);
+      const res = method === 'get' ? await browser.get(path) : await browser.send(method, path, body);
+      expect({ status: res.status, body: res.status === expected ? undefined : res.body }).toEqual({ status: expected, body: undefined });
+      if (res.status >= 400) expect(res.headers['content-type']).toMatch(/^application\/problem\+json/);
+    });
+  });
+});
