@@ -8,6 +8,7 @@ import { createApp } from './app';
 import { loadConfig } from './config';
 import { createDataSource } from './database/data-source';
 import { LessonStore } from './lessons/lesson-store';
+import { closeGracefully } from './http/graceful-shutdown';
 import { createLogger } from './logger';
 import { Mailer, smtpTransport } from './mail/mailer';
 
@@ -32,25 +33,19 @@ async function main(): Promise<void> {
   });
 
   let stopping = false;
-  const stop = (signal: string) => {
+  const stop = async (signal: string) => {
     if (stopping) return;
     stopping = true;
     logger.info({ signal }, 'shutting down: finishing in-flight requests');
-    const force = setTimeout(() => {
-      logger.warn('grace period over: closing remaining connections');
-      server.closeAllConnections();
-    }, config.shutdownGraceSeconds * 1000);
-    force.unref();
-    server.close(async () => {
-      await mailer.idle();
-      await dataSource.destroy().catch((err: unknown) => logger.warn({ err }, 'closing the database pool failed'));
-      logger.info('stopped');
-      process.exit(0);
-    });
-    server.closeIdleConnections();
+    const { forced } = await closeGracefully(server, config.shutdownGraceSeconds * 1000);
+    if (forced) logger.warn('grace period over: remaining connections were closed');
+    await mailer.idle();
+    await dataSource.destroy().catch((err: unknown) => logger.warn({ err }, 'closing the database pool failed'));
+    logger.info('stopped');
+    process.exit(0);
   };
-  process.on('SIGINT', () => stop('SIGINT'));
-  process.on('SIGTERM', () => stop('SIGTERM'));
+  process.on('SIGINT', () => void stop('SIGINT'));
+  process.on('SIGTERM', () => void stop('SIGTERM'));
 }
 
 /** The database may still be starting (or briefly away) when the app starts: retry for a while. */
