@@ -58,7 +58,9 @@ test('a visitor works out air density, copies the link, and the link opens the s
   await numberField(page, /^Relative humidity/).fill('40');
 
   await expect(resultValue(page, 'Air density')).toHaveText('1.162');
-  await expect(resultValue(page, 'Dew point')).toHaveText('283.63');
+  // SI results read in the shop's units: °C, not the engine's kelvin.
+  await expect(resultValue(page, 'Dew point')).toHaveText('10.481');
+  await expect(page.getByRole('combobox', { name: 'Unit for Dew point (result)' })).toContainText('°C');
   const steps = page.getByRole('region', { name: 'Worked steps' });
   await expect(steps.getByRole('heading', { level: 3, name: 'Density of moist air (CIPM-2007)' })).toBeVisible();
   await expect(steps.getByRole('math').first()).toBeAttached();
@@ -74,7 +76,7 @@ test('a visitor works out air density, copies the link, and the link opens the s
   await opened.goto(link);
   await expect(opened).toHaveTitle(`${airDensity} · Flowlore`);
   await expect(resultValue(opened, 'Air density')).toHaveText('1.162');
-  await expect(resultValue(opened, 'Dew point')).toHaveText('283.63');
+  await expect(resultValue(opened, 'Dew point')).toHaveText('10.481');
   await expect(numberField(opened, 'Air temperature')).toHaveValue('77');
   await expect(unitPicker(opened, 'Air temperature')).toContainText('°F');
   await expect(numberField(opened, 'Barometric pressure (absolute)')).toHaveValue('29.5');

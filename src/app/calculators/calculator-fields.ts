@@ -26,10 +26,10 @@ import { QuantityField } from './quantity-field';
         }
         @case ('group') {
           <div class="group">
-            <span class="group-label" [id]="form().summary.id + '-' + item.group.id">{{ item.group.label }}</span>
+            <span class="group-label" [id]="form().uid + '-' + item.group.id">{{ item.group.label }}</span>
             <mat-button-toggle-group
               [formControl]="item.control"
-              [attr.aria-labelledby]="form().summary.id + '-' + item.group.id"
+              [attr.aria-labelledby]="form().uid + '-' + item.group.id"
             >
               @for (member of item.members; track member.input.name) {
                 <mat-button-toggle [value]="member.input.name">{{ member.input.label }}</mat-button-toggle>

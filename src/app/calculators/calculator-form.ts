@@ -32,6 +32,8 @@ export interface OutputItem {
   readonly unit: FormControl<string>;
 }
 
+let formsMade = 0;
+
 /**
  * A calculator's summary as a typed reactive form: one text + unit pair per quantity (text, so
  * a half-typed "1.5e" stays on screen), one control per option, the picked member of each one-of
@@ -40,6 +42,8 @@ export interface OutputItem {
  * setErrors, so the message survives the re-validation a field does when it is shown again).
  */
 export class CalculatorForm {
+  /** Unique on the page (a lesson may show the same calculator twice): a prefix for element ids. */
+  readonly uid: string;
   readonly group: CalculatorFormGroup;
   readonly items: readonly FormItem[];
   readonly outputs: readonly OutputItem[];
@@ -56,6 +60,7 @@ export class CalculatorForm {
     readonly summary: CalculatorSummary,
     state: FormState,
   ) {
+    this.uid = `${summary.id}-${++formsMade}`;
     const quantities = new FormRecord<FormGroup<QuantityControls>>({});
     const options = new FormRecord<FormControl<string>>({});
     const picks = new FormRecord<FormControl<string>>({});

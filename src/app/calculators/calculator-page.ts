@@ -10,48 +10,27 @@ import {
   linkedSignal,
   untracked,
 } from '@angular/core';
-import { takeUntilDestroyed, toObservable } from '@angular/core/rxjs-interop';
-import { ErrorStateMatcher } from '@angular/material/core';
 import { MatButton } from '@angular/material/button';
 import { MatButtonToggle, MatButtonToggleGroup } from '@angular/material/button-toggle';
 import { MatIcon } from '@angular/material/icon';
 import { MatSnackBar } from '@angular/material/snack-bar';
 import { ActivatedRoute, Params, Router, RouterLink } from '@angular/router';
-import { EMPTY, debounceTime, map, switchMap } from 'rxjs';
 
 import { describeCalculator } from '../../../shared/airflow';
-import { CalculationResults } from './calculation-results';
-import { CalculatorFields } from './calculator-fields';
 import { CalculatorForm } from './calculator-form';
-import { calculate, convertToSystem, exampleState, isGiven } from './form-state';
-import { KatexRender } from './katex-render';
+import { CalculatorPanel } from './calculator-panel';
+import { type FormState, convertToSystem, exampleState } from './form-state';
 import { decodeShareLink, encodeShareLink } from './share-link';
 import { UnitSystem } from './unit-system';
 import { UnitSystemService } from './unit-system.service';
-import { unitSuffix } from './unit-labels';
-import { WorkedSteps } from './worked-steps';
 
-/** Long enough to skip the keystrokes of one number, short enough to feel live. */
-const settleMs = 150;
-
-/** A field shows its message as soon as the engine refuses it, touched or not (e.g. from a link). */
-const engineErrorState: ErrorStateMatcher = { isErrorState: (control) => !!control?.invalid };
-
-/** One calculator: its form, live results, worked steps, a share link and a print layout. */
+/**
+ * One calculator: the panel (form, live results, worked steps) with the unit switch, a share
+ * link kept in the address bar, reset and print.
+ */
 @Component({
   selector: 'fl-calculator-page',
-  imports: [
-    CalculationResults,
-    CalculatorFields,
-    KatexRender,
-    MatButton,
-    MatButtonToggle,
-    MatButtonToggleGroup,
-    MatIcon,
-    RouterLink,
-    WorkedSteps,
-  ],
-  providers: [{ provide: ErrorStateMatcher, useValue: engineErrorState }],
+  imports: [CalculatorPanel, MatButton, MatButtonToggle, MatButtonToggleGroup, MatIcon, RouterLink],
   templateUrl: './calculator-page.html',
   styleUrl: './calculator-page.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -68,7 +47,6 @@ export class CalculatorPage {
   private readonly document = inject(DOCUMENT);
 
   protected readonly summary = computed(() => describeCalculator(this.id()));
-  protected readonly noErrors: ReadonlyMap<string, string> = new Map();
 
   /** The form, opened from the link in the address bar, or on the worked example. */
   private readonly opened = computed(() => {
@@ -85,58 +63,13 @@ export class CalculatorPage {
   protected readonly form = computed(() => this.opened()?.form);
   protected readonly system = linkedSignal<UnitSystem>(() => this.opened()?.system ?? 'si');
 
-  /** The form's state once typing pauses: what is evaluated, put in the address bar and printed. */
-  private readonly settled = linkedSignal(() => {
+  /** The form's state once typing pauses, as the panel reports it: what goes in the address bar. */
+  private readonly settled = linkedSignal<{ form: CalculatorForm; state: FormState } | undefined>(() => {
     const form = this.form();
-    return form === undefined ? undefined : { form, state: form.state() };
-  });
-
-  protected readonly evaluation = computed(() => {
-    const settled = this.settled();
-    return settled === undefined ? undefined : calculate(settled.form.summary, settled.state);
-  });
-
-  /** The inputs as given, for the printed page. */
-  protected readonly printedInputs = computed(() => {
-    const settled = this.settled();
-    if (settled === undefined) return [];
-    const { summary } = settled.form;
-    const { state } = settled;
-    return summary.inputs
-      .filter((input) => isGiven(input, state.picks))
-      .flatMap((input) => {
-        if (input.kind === 'option') {
-          const chosen = input.options?.find((option) => option.value === state.options[input.name]);
-          return chosen ? [{ label: input.label, symbol: '', value: chosen.label, unit: '' }] : [];
-        }
-        const entry = state.quantities[input.name];
-        const text = entry?.text.trim() ?? '';
-        return entry && text ? [{ label: input.label, symbol: input.symbol, value: text, unit: unitSuffix(entry.unit) }] : [];
-      });
+    return form === undefined ? undefined : { form, state: untracked(() => form.state()) };
   });
 
   constructor() {
-    toObservable(this.form)
-      .pipe(
-        switchMap((form) =>
-          form === undefined
-            ? EMPTY
-            : form.group.valueChanges.pipe(
-                debounceTime(settleMs),
-                map(() => ({ form, state: form.state() })),
-              ),
-        ),
-        takeUntilDestroyed(),
-      )
-      .subscribe((settled) => this.settled.set(settled));
-
-    // The engine's messages go onto the fields they name; the typed text is never touched.
-    effect(() => {
-      const settled = this.settled();
-      const evaluation = this.evaluation();
-      if (settled && evaluation) settled.form.showErrors(evaluation.fieldErrors);
-    });
-
     // The address bar always holds a link to what is on screen.
     effect(() => {
       const settled = this.settled();
@@ -144,6 +77,10 @@ export class CalculatorPage {
       const params = encodeShareLink(settled.form.summary, settled.state, this.system());
       untracked(() => this.keepAddressShareable(params));
     });
+  }
+
+  protected formSettled(form: CalculatorForm, state: FormState): void {
+    this.settled.set({ form, state });
   }
 
   protected changeSystem(system: UnitSystem): void {

@@ -1,5 +1,5 @@
 import { describeCalculator, type CalculatorSummary } from '../../../shared/airflow';
-import { blankState, calculate, convertToSystem, exampleState, parseTyped } from './form-state';
+import { blankState, calculate, convertToSystem, exampleState, outputUnitOf, parseTyped, presetState } from './form-state';
 
 function calculator(id: string): CalculatorSummary {
   const summary = describeCalculator(id);
@@ -52,5 +52,27 @@ describe('form state', () => {
     const evaluation = calculate(summary, exampleState(summary, 'si'));
     expect(evaluation.messages).toEqual([]);
     expect(evaluation.result?.outputs['density']?.value).toBeCloseTo(1.1993, 4);
+  });
+});
+
+describe('shop units and lesson presets', () => {
+  it('shows SI results in the shop units for their kind, not the engine base units', () => {
+    const summary = calculator('air-density');
+    const dewPoint = summary.outputs.find((output) => output.name === 'dewPoint')!;
+    expect(dewPoint.defaultUnit.si).toBe('K');
+    expect(outputUnitOf(dewPoint, 'si')).toBe('degC');
+    expect(outputUnitOf(dewPoint, 'us')).toBe('degF');
+    expect(blankState(summary, 'si').outputUnits['vaporPressure']).toBe('kPa');
+    const evaluation = calculate(summary, exampleState(summary, 'si'));
+    expect(evaluation.result?.outputs['dewPoint']?.unit).toBe('degC');
+  });
+
+  it('opens a lesson preset in the units the author wrote, with the picked group member', () => {
+    const summary = calculator('manometer');
+    const state = presetState(summary, { pressure: { value: 7, unit: 'kPa' }, fluid: 'water' }, 'us');
+    expect(state.quantities['pressure']).toEqual({ text: '7', unit: 'kPa' });
+    expect(state.options['fluid']).toBe('water');
+    expect(state.picks[summary.groups[0]!.id]).toBe('pressure');
+    expect(state.outputUnits['height']).toBe(summary.outputs.find((o) => o.name === 'height')?.defaultUnit.us);
   });
 });

@@ -10,6 +10,8 @@ import {
   type FieldError,
   type InputSummary,
   type InputValue,
+  type OutputSummary,
+  DEFAULT_UNITS,
   convert,
   evaluate,
 } from '../../../shared/airflow';
@@ -51,6 +53,14 @@ export function defaultUnitOf(input: InputSummary, system: UnitSystem): string {
   return input.defaultUnit?.[system] ?? input.units?.[0] ?? '';
 }
 
+/**
+ * The unit an output is shown in for a unit system. In SI that is the shop's unit for the kind
+ * (°C, kPa, L/s, g/s), not the engine's base unit (K, Pa, m³/s, kg/s) it computes in.
+ */
+export function outputUnitOf(output: OutputSummary, system: UnitSystem): string {
+  return system === 'si' ? DEFAULT_UNITS[output.kind].si : output.defaultUnit.us;
+}
+
 /** Everything empty, units from the system, options at their defaults. */
 export function blankState(summary: CalculatorSummary, system: UnitSystem): FormState {
   const state: FormState = { quantities: {}, options: {}, picks: {}, outputUnits: {} };
@@ -62,7 +72,7 @@ export function blankState(summary: CalculatorSummary, system: UnitSystem): Form
     }
   }
   for (const group of summary.groups) state.picks[group.id] = group.inputs[0] ?? '';
-  for (const output of summary.outputs) state.outputUnits[output.name] = output.defaultUnit[system];
+  for (const output of summary.outputs) state.outputUnits[output.name] = outputUnitOf(output, system);
   return state;
 }
 
@@ -85,6 +95,30 @@ export function exampleState(summary: CalculatorSummary, system: UnitSystem): Fo
   }
   for (const group of summary.groups) {
     const first = group.inputs.find((name) => summary.inputs.some((i) => i.name === name && i.example !== undefined));
+    if (first !== undefined) state.picks[group.id] = first;
+  }
+  return state;
+}
+
+/**
+ * A lesson's preset (the example with the author's values over it) as a form: every value in the
+ * unit the author wrote it in, since the lesson's text talks about those very figures; outputs in
+ * the reader's unit system.
+ */
+export function presetState(summary: CalculatorSummary, inputs: Readonly<Record<string, InputValue>>, system: UnitSystem): FormState {
+  const state = blankState(summary, system);
+  for (const input of summary.inputs) {
+    const given = inputs[input.name];
+    if (given === undefined) continue;
+    if (input.kind === 'option') {
+      if (typeof given === 'string') state.options[input.name] = given;
+      continue;
+    }
+    const quantity = exampleQuantity(input, given);
+    if (quantity !== undefined) state.quantities[input.name] = { text: String(quantity.value), unit: quantity.unit };
+  }
+  for (const group of summary.groups) {
+    const first = group.inputs.find((name) => inputs[name] !== undefined);
     if (first !== undefined) state.picks[group.id] = first;
   }
   return state;
@@ -126,7 +160,7 @@ export function convertToSystem(summary: CalculatorSummary, state: FormState, sy
     quantities[input.name] = converted === undefined ? entry : { text: formatTyped(converted), unit: target };
   }
   const outputUnits: Record<string, string> = {};
-  for (const output of summary.outputs) outputUnits[output.name] = output.defaultUnit[system];
+  for (const output of summary.outputs) outputUnits[output.name] = outputUnitOf(output, system);
   return { ...state, quantities, outputUnits };
 }
 

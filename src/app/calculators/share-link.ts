@@ -11,6 +11,7 @@
  *                    already show it (the first member given, else the group's first member)
  *   units=si|us      the unit system of the switch
  *   out.name=unit    an output's unit, written only where it differs from the system's default
+ *                    (outputUnitOf: the shop's unit in SI, e.g. °C rather than K)
  *
  * Unit tokens are the engine's unit names with "^" dropped, "/" written "_per_" and "%" written
  * "pct", so a link needs no percent-encoding: m^3/s → m3_per_s, kg/m^3 → kg_per_m3, % → pct.
@@ -18,7 +19,7 @@
  * names with a dot) cannot clash with the engine's input names, which are plain identifiers.
  */
 import type { CalculatorSummary } from '../../../shared/airflow';
-import { type FormState, blankState, defaultUnitOf, isGiven } from './form-state';
+import { type FormState, blankState, defaultUnitOf, isGiven, outputUnitOf } from './form-state';
 import { type UnitSystem, isUnitSystem } from './unit-system';
 
 export type ShareParams = Record<string, string>;
@@ -53,7 +54,7 @@ export function encodeShareLink(summary: CalculatorSummary, state: FormState, sy
   params['units'] = system;
   for (const output of summary.outputs) {
     const unit = state.outputUnits[output.name];
-    if (unit !== undefined && unit !== output.defaultUnit[system]) params[`out.${output.name}`] = unitToken(unit);
+    if (unit !== undefined && unit !== outputUnitOf(output, system)) params[`out.${output.name}`] = unitToken(unit);
   }
   return params;
 }

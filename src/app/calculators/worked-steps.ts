@@ -11,10 +11,11 @@ import { KatexRender } from './katex-render';
     <ol class="steps">
       @for (step of steps(); track $index; let number = $index) {
         <li class="step">
-          <h3 class="step-title">
+          <!-- A heading one level below the section the steps sit in: h3 on the page, h4 in a lesson. -->
+          <div class="step-title" role="heading" [attr.aria-level]="headingLevel()">
             <span class="step-number figures" aria-hidden="true">{{ number + 1 }}</span>
             <span>{{ step.title }}</span>
-          </h3>
+          </div>
           <dl class="step-lines">
             <div class="step-line">
               <dt>Formula</dt>
@@ -38,4 +39,5 @@ import { KatexRender } from './katex-render';
 })
 export class WorkedSteps {
   readonly steps = input.required<readonly Step[]>();
+  readonly headingLevel = input(3);
 }

@@ -1,18 +1,21 @@
-import { ChangeDetectionStrategy, Component } from '@angular/core';
+import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
+import { MatButton } from '@angular/material/button';
 import { RouterLink } from '@angular/router';
 
-/** Placeholder until the course outline lands: says so plainly and points to what works today. */
+import { LessonsService } from './lessons.service';
+
+/** The course: the nine lessons in order, each with what it covers and what the reader can do after. */
 @Component({
   selector: 'fl-course-outline',
-  imports: [RouterLink],
-  template: `
-    <h1>Course</h1>
-    <p class="prose">
-      The course outline is on its way. The nine lessons are being written and will appear here,
-      each with its calculators, quiz and safety notes.
-    </p>
-    <p class="prose">Until then, <a routerLink="/">see what the nine lessons cover</a>.</p>
-  `,
+  imports: [MatButton, RouterLink],
+  templateUrl: './course-outline.html',
+  styleUrl: './course-outline.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
-export class CourseOutline {}
+export class CourseOutline {
+  protected readonly outline = inject(LessonsService).outline();
+
+  protected retry(): void {
+    this.outline.reload();
+  }
+}
