@@ -3,6 +3,11 @@ import { defineConfig, devices } from '@playwright/test';
 const port = Number(process.env['E2E_PORT'] ?? 4310);
 const baseURL = `http://127.0.0.1:${port}`;
 
+/** The named variables that are set in this environment (an unset one keeps the server's default). */
+function passThrough(names: readonly string[]): Record<string, string> {
+  return Object.fromEntries(names.flatMap((name) => (process.env[name] ? [[name, process.env[name] as string]] : [])));
+}
+
 /**
  * Browser tests drive Debian's Chromium (never a downloaded browser) against the built app,
  * served by the built server on its own port with the test database from `npm test`.
@@ -44,12 +49,17 @@ export default defineConfig({
     timeout: 60_000,
     stdout: 'ignore',
     stderr: 'pipe',
+    // Only what the server needs, passed through from `npm test` (server/devstack/test.mjs), which
+    // starts a mail catcher and sets SMTP_HOST/SMTP_PORT for it; the tests read that catcher's mail
+    // over MAILDEV_API_URL. E-mail links must point at this server, hence APP_BASE_URL.
     env: {
       PORT: String(port),
       HOST: '127.0.0.1',
       NODE_ENV: 'test',
       LOG_LEVEL: 'warn',
       DATABASE_URL: process.env['DATABASE_URL'] ?? '',
+      APP_BASE_URL: baseURL,
+      ...passThrough(['SMTP_HOST', 'SMTP_PORT', 'SMTP_SECURE', 'MAIL_FROM', 'SESSION_SECRET', 'DEMO_MODE']),
     },
   },
 });

@@ -1,6 +1,8 @@
 import { Routes } from '@angular/router';
 
 import { calculatorTitle } from './calculators/calculator-title';
+import { roleGuard } from './core/auth-guards';
+import { lessonTitle } from './course/lesson-title';
 
 // Every page is its own lazy chunk; the shell (top bar, navigation, footer) is all that loads up front.
 export const routes: Routes = [
@@ -16,6 +18,16 @@ export const routes: Routes = [
     loadComponent: () => import('./course/course-outline').then((m) => m.CourseOutline),
   },
   {
+    path: 'course/:slug',
+    title: lessonTitle,
+    loadComponent: () => import('./course/lesson-page').then((m) => m.LessonPage),
+  },
+  {
+    path: 'glossary',
+    title: 'Glossary',
+    loadComponent: () => import('./course/glossary-page').then((m) => m.GlossaryPage),
+  },
+  {
     path: 'calculators',
     title: 'Calculators',
     loadComponent: () =>
@@ -26,10 +38,26 @@ export const routes: Routes = [
     title: calculatorTitle,
     loadComponent: () => import('./calculators/calculator-page').then((m) => m.CalculatorPage),
   },
+  { path: 'sign-in', pathMatch: 'full', redirectTo: '/account/sign-in' },
   {
-    path: 'sign-in',
-    title: 'Sign in',
-    loadComponent: () => import('./account/sign-in-page').then((m) => m.SignInPage),
+    path: 'account',
+    loadChildren: () => import('./account/account.routes').then((m) => m.accountRoutes),
+  },
+  {
+    path: 'admin',
+    canActivate: [roleGuard('admin')],
+    loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes),
+  },
+  {
+    path: 'cohorts',
+    canActivate: [roleGuard('instructor')],
+    loadChildren: () => import('./cohorts/cohorts.routes').then((m) => m.cohortsRoutes),
+  },
+  {
+    path: 'shop',
+    title: 'My shop',
+    canActivate: [roleGuard('shop_owner')],
+    loadComponent: () => import('./shop/shop-page').then((m) => m.ShopPage),
   },
   {
     path: '**',

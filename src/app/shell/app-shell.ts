@@ -1,15 +1,19 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
-import { ChangeDetectionStrategy, Component, inject, linkedSignal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButton, MatIconButton } from '@angular/material/button';
 import { MatIcon } from '@angular/material/icon';
 import { MatSidenav, MatSidenavContainer, MatSidenavContent } from '@angular/material/sidenav';
 import { MatToolbar } from '@angular/material/toolbar';
-import { RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
 import { map } from 'rxjs';
+
+import type { Role } from '../../../shared/api/accounts';
+import { AuthService } from '../core/auth.service';
 
 import { SiteFooter } from './site-footer';
 import { ThemeMenu } from './theme-menu';
+import { UserMenu } from './user-menu';
 
 // Below Material's "medium" window class (840px) the links move into a drawer: phones and
 // shop-floor tablets held upright.
@@ -19,6 +23,13 @@ interface NavLink {
   readonly path: string;
   readonly label: string;
 }
+
+// The pages each role works in, after the ones everybody has.
+const ROLE_LINKS: Readonly<Partial<Record<Role, readonly NavLink[]>>> = {
+  admin: [{ path: '/admin', label: 'Admin' }],
+  instructor: [{ path: '/cohorts', label: 'Cohorts' }],
+  shop_owner: [{ path: '/shop', label: 'My shop' }],
+};
 
 /** The frame around every page: top bar, main navigation, the page itself, footer. */
 @Component({
@@ -36,6 +47,7 @@ interface NavLink {
     RouterOutlet,
     SiteFooter,
     ThemeMenu,
+    UserMenu,
   ],
   templateUrl: './app-shell.html',
   styleUrl: './app-shell.scss',
@@ -43,11 +55,19 @@ interface NavLink {
 })
 export class AppShell {
   private readonly breakpoints = inject(BreakpointObserver);
+  private readonly router = inject(Router);
+  protected readonly auth = inject(AuthService);
 
-  protected readonly sections: readonly NavLink[] = [
+  private readonly everyone: readonly NavLink[] = [
     { path: '/course', label: 'Course' },
     { path: '/calculators', label: 'Calculators' },
   ];
+
+  /** The top bar's and the drawer's links: the same list, with the signed-in role's pages added. */
+  protected readonly sections = computed<readonly NavLink[]>(() => {
+    const role = this.auth.role();
+    return role ? [...this.everyone, ...(ROLE_LINKS[role] ?? [])] : this.everyone;
+  });
 
   protected readonly narrow = toSignal(
     this.breakpoints.observe(narrowQuery).pipe(map((state) => state.matches)),
@@ -56,6 +76,12 @@ export class AppShell {
 
   /** Whether the navigation drawer is open; it closes whenever the layout changes. */
   protected readonly drawerOpen = linkedSignal({ source: this.narrow, computation: () => false });
+
+  protected async signOut(): Promise<void> {
+    this.drawerOpen.set(false);
+    await this.auth.signOut();
+    await this.router.navigateByUrl('/');
+  }
 
   /** The app uses <base href="/">, so a bare "#content" link would leave the page: move focus instead. */
   protected skipToContent(event: Event, main: HTMLElement): void {

@@ -1,0 +1,55 @@
+import { HttpClient } from '@angular/common/http';
+import { Injectable, computed, inject, signal } from '@angular/core';
+import { firstValueFrom } from 'rxjs';
+
+import type { Account, MeResponse, Role, SignInRequest } from '../../../shared/api/accounts';
+import { problemDisplay } from './problem';
+
+/**
+ * Who is signed in, as signals for the shell, the guards and the pages. Loaded once at start-up
+ * from `GET /api/auth/me`; the session itself is an HttpOnly cookie the app never reads.
+ */
+@Injectable({ providedIn: 'root' })
+export class AuthService {
+  private readonly http = inject(HttpClient);
+  private readonly current = signal<Account | null>(null);
+
+  readonly user = this.current.asReadonly();
+  readonly role = computed<Role | null>(() => this.current()?.role ?? null);
+  readonly signedIn = computed(() => this.current() !== null);
+
+  /** Asks the server who this is; a visitor (or an unreachable API) counts as signed out. */
+  async load(): Promise<void> {
+    try {
+      const me = await firstValueFrom(this.http.get<MeResponse>('/api/auth/me'));
+      this.current.set(me?.user ?? null);
+    } catch {
+      this.current.set(null);
+    }
+  }
+
+  /**
+   * Signs in; the server starts a new session and sends a new XSRF-TOKEN cookie with it. The sign-in
+   * page shows a refusal beside the form itself (it must outlast a snackbar).
+   */
+  async signIn(credentials: SignInRequest): Promise<Account> {
+    const { user } = await firstValueFrom(
+      this.http.post<{ user: Account }>('/api/auth/sign-in', credentials, { context: problemDisplay('page') }),
+    );
+    this.current.set(user);
+    return user;
+  }
+
+  async signOut(): Promise<void> {
+    try {
+      await firstValueFrom(this.http.post<void>('/api/auth/sign-out', null));
+    } finally {
+      this.current.set(null);
+    }
+  }
+
+  /** After the server answered with a changed account (profile) or said the session is gone (401). */
+  setUser(user: Account | null): void {
+    this.current.set(user);
+  }
+}
