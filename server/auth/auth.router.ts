@@ -64,9 +64,9 @@ export function authRouter(deps: AuthRouterDeps): Router {
     res.set('Cache-Control', 'no-store').json({ token });
   });
 
+  /** The demo sign-ins in demo mode; an empty list otherwise (the sign-in page then shows none). */
   router.get('/demo-accounts', (_req, res) => {
-    if (!deps.demoAccounts) throw HttpProblem.notFound('Demo sign-ins are listed in demo mode only.');
-    res.set('Cache-Control', 'no-store').json(deps.demoAccounts);
+    res.set('Cache-Control', 'no-store').json(deps.demoAccounts ?? []);
   });
 
   router.post('/sign-up', signUpLimit, validateBody(signUpSchema), async (_req, res) => {

@@ -82,7 +82,7 @@ export class AuthService {
     const now = this.deps.now();
     await this.deps.dataSource.transaction(async (manager) => {
       const userId = await consumeToken(manager, token, 'verify-email', now);
-      if (!userId) throw new HttpProblem(400, 'Bad request', 'This confirmation link is not valid any more. Ask for a new one by signing in.');
+      if (!userId) throw new HttpProblem(400, 'Bad request', 'This confirmation link is not valid any more. Use “Forgot password” on the sign-in page: following the reset link also confirms your address.');
       await manager.query('UPDATE user_account SET verified_at = coalesce(verified_at, $2) WHERE id = $1', [userId, now]);
     });
   }

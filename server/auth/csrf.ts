@@ -8,6 +8,8 @@ import { HttpProblem } from '../http/problem';
 /** Angular's HttpClient reads this cookie and echoes it in the header below on mutating requests. */
 export const CSRF_COOKIE = 'XSRF-TOKEN';
 export const CSRF_HEADER = 'x-xsrf-token';
+/** The problem `type` of a refused CSRF token, so the client can fetch a fresh one and retry. */
+export const CSRF_PROBLEM_TYPE = '/problems/csrf-token';
 
 /**
  * Requests exempt from CSRF checks because they change nothing: evaluating a calculator is a pure
@@ -45,7 +47,7 @@ export function csrfGuard(config: Config): CsrfGuard {
   const protect: RequestHandler = (req, res, next) => {
     withCookies(req, res, () => {
       doubleCsrfProtection(req, res, (err?: unknown) => {
-        if (err) next(new HttpProblem(403, 'Forbidden', 'The request lacks a valid CSRF token. Reload the page and try again.'));
+        if (err) next(new HttpProblem(403, 'Forbidden', 'The request lacks a valid CSRF token. Reload the page and try again.', undefined, CSRF_PROBLEM_TYPE));
         else next();
       });
     });

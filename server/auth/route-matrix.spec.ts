@@ -46,8 +46,8 @@ const MATRIX: Record<string, Row> = {
 
   'GET /api/auth/me': { request: get('/api/auth/me'), expect: [200, 200, 200, 200, 200, 200] },
   'GET /api/auth/csrf': { request: get('/api/auth/csrf'), expect: [200, 200, 200, 200, 200, 200] },
-  // DEMO_MODE is off in tests (and by default).
-  'GET /api/auth/demo-accounts': { request: get('/api/auth/demo-accounts'), expect: [404, 404, 404, 404, 404, 404] },
+  // DEMO_MODE is off in tests (and by default): an empty list for everyone.
+  'GET /api/auth/demo-accounts': { request: get('/api/auth/demo-accounts'), expect: [200, 200, 200, 200, 200, 200] },
   'POST /api/auth/sign-up': {
     request: () => ({ method: 'post', path: '/api/auth/sign-up', body: { accountType: 'apprentice', email: uniqueEmail('matrix'), displayName: 'Matrix', password: 'matrix sign-up passphrase' } }),
     expect: [202, 202, 202, 202, 202, 202],

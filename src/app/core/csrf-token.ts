@@ -42,7 +42,7 @@ function needsToken(req: HttpRequest<unknown>): boolean {
 
 /** The server's answer to a missing or stale token (a 403 problem naming CSRF). */
 function isCsrfRefusal(error: unknown): boolean {
-  return error instanceof HttpErrorResponse && error.status === 403 && /CSRF/.test(problemOf(error)?.detail ?? '');
+  return error instanceof HttpErrorResponse && error.status === 403 && problemOf(error)?.type === '/problems/csrf-token';
 }
 
 /**

@@ -2,6 +2,8 @@ import { HttpContext, HttpContextToken, HttpErrorResponse } from '@angular/commo
 
 /** An RFC 9457 problem as the API sends it (`application/problem+json`). */
 export interface Problem {
+  /** RFC 9457 type: 'about:blank', or one of ours such as '/problems/csrf-token'. */
+  readonly type: string;
   readonly title: string;
   readonly status: number;
   readonly detail?: string;
@@ -25,7 +27,7 @@ export function problemOf(error: unknown): Problem | null {
   if (!(error instanceof HttpErrorResponse)) return null;
   const body = error.error as Partial<Problem> | null;
   if (typeof body !== 'object' || body === null || typeof body.title !== 'string') return null;
-  return { title: body.title, status: error.status, detail: body.detail, errors: Array.isArray(body.errors) ? body.errors : undefined };
+  return { type: typeof body.type === 'string' ? body.type : 'about:blank', title: body.title, status: error.status, detail: body.detail, errors: Array.isArray(body.errors) ? body.errors : undefined };
 }
 
 /** The sentence to show for a problem: its detail, else its title. */
