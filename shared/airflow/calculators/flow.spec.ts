@@ -1,14 +1,8 @@
 import * as fc from 'fast-check';
 import { evaluate } from '../index';
-import type { CalculationResult, InputValue } from '../index';
+import type { InputValue } from '../index';
+import { out, q, run } from './run-calculator.spec-support';
 
-function run(id: string, inputs: Record<string, InputValue>, outputUnits?: Record<string, string>): CalculationResult {
-  const outcome = evaluate(id, outputUnits === undefined ? { inputs } : { inputs, outputUnits });
-  if (!outcome.ok) throw new Error(`${id} refused: ${JSON.stringify(outcome.errors)}`);
-  return outcome.result;
-}
-const out = (r: CalculationResult, name: string) => r.outputs[name]?.value ?? Number.NaN;
-const q = (value: number, unit: string) => ({ value, unit });
 
 describe('flow-at-test-pressure', () => {
   it('200 cfm at 10 inH2O is 334.66 cfm at 28 inH2O', () => {

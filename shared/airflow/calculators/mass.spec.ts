@@ -1,14 +1,7 @@
 import * as fc from 'fast-check';
 import { evaluate } from '../index';
-import type { CalculationResult, InputValue } from '../index';
+import { out, q, run } from './run-calculator.spec-support';
 
-function run(id: string, inputs: Record<string, InputValue>, outputUnits?: Record<string, string>): CalculationResult {
-  const outcome = evaluate(id, outputUnits === undefined ? { inputs } : { inputs, outputUnits });
-  if (!outcome.ok) throw new Error(`${id} refused: ${JSON.stringify(outcome.errors)}`);
-  return outcome.result;
-}
-const out = (r: CalculationResult, name: string) => r.outputs[name]?.value ?? Number.NaN;
-const q = (value: number, unit: string) => ({ value, unit });
 
 describe('mass-flow', () => {
   it('450 cfm of standard air is 33.75 lb/min', () => {
