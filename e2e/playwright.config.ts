@@ -39,7 +39,9 @@ export default defineConfig({
     },
   },
   projects: [
-    { name: 'desktop', use: { ...devices['Desktop Chrome'], viewport: { width: 1280, height: 800 } } },
+    // One signed-in state per role (admin, instructor, shop owner), saved to e2e/.auth/ for the tests that need it.
+    { name: 'setup', testMatch: /.*\.setup\.ts/, use: { ...devices['Desktop Chrome'] } },
+    { name: 'desktop', use: { ...devices['Desktop Chrome'], viewport: { width: 1280, height: 800 } }, dependencies: ['setup'] },
   ],
   webServer: {
     command: 'node dist/api/server/main.js',

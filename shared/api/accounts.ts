@@ -20,6 +20,19 @@ export const signUpSchema = z.discriminatedUnion('accountType', [
 ]);
 export type SignUpRequest = z.infer<typeof signUpSchema>;
 
+/**
+ * `cli.js create-user`: an operator creates a verified account of any role, with the sign-up rules
+ * for each field; a shop owner names their shop, nobody else may.
+ */
+export const createUserSchema = z
+  .object({ email, displayName, role: z.enum(ROLES), password: newPassword, shopName: z.string().trim().min(2).max(120).optional() })
+  .strict()
+  .superRefine((value, ctx) => {
+    if (value.role === 'shop_owner' && !value.shopName) ctx.addIssue({ code: 'custom', path: ['shopName'], message: 'A shop owner needs a shop: give --shop "Shop name".' });
+    if (value.role !== 'shop_owner' && value.shopName) ctx.addIssue({ code: 'custom', path: ['shopName'], message: 'Only a shop owner gets a shop: leave out --shop.' });
+  });
+export type CreateUserRequest = z.infer<typeof createUserSchema>;
+
 export const signInSchema = z.object({ email, password: anyPassword }).strict();
 export type SignInRequest = z.infer<typeof signInSchema>;
 

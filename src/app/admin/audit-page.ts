@@ -10,6 +10,7 @@ import { AdminApi } from './admin-api';
 import { keepLast } from './keep-last';
 
 const ACTION_LABELS: Readonly<Record<string, string>> = {
+  'account.created': 'Account created',
   'role.changed': 'Role changed',
   'account.disabled': 'Account disabled',
   'account.enabled': 'Account enabled',
