@@ -34,7 +34,8 @@ export function calculatorsRouter(): Router {
     if (!outcome.ok) {
       throw HttpProblem.badRequest('Some inputs cannot be used; each is listed with the reason.', outcome.errors.map(toRequestField));
     }
-    res.json(outcome.result);
+    // A computed answer, not a cacheable representation: no ETag to hash for it.
+    res.type('application/json').end(outcome.json ?? JSON.stringify(outcome.result));
   });
 
   return router;
