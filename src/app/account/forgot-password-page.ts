@@ -5,7 +5,7 @@ import { MatError, MatFormField, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { RouterLink } from '@angular/router';
 
-import { applyServerErrors, fieldError, focusAfterRender, focusFirstInvalid } from '../core/form-errors';
+import { fieldError, focusAfterRender, submitForm } from '../core/form-errors';
 import { AccountApi } from './account-api';
 
 /** `/account/forgot-password`: asks for a reset link; the answer never says whether the address has an account. */
@@ -53,22 +53,16 @@ export class ForgotPasswordPage {
   protected readonly emailMessages = { required: 'Enter your e-mail address.', email: 'Enter an e-mail address like name@example.com.' };
 
   protected async submit(): Promise<void> {
-    const formElement = this.formElement()?.nativeElement;
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      if (formElement) focusFirstInvalid(formElement, this.injector);
-      return;
-    }
-    this.submitting.set(true);
-    try {
-      await this.api.forgotPassword(this.form.getRawValue().email);
-      this.sent.set(true);
-      focusAfterRender(() => this.sentNotice()?.nativeElement, this.injector);
-    } catch (error) {
-      applyServerErrors(this.form, error);
-      if (formElement) focusFirstInvalid(formElement, this.injector);
-    } finally {
-      this.submitting.set(false);
-    }
+    await submitForm({
+      form: this.form,
+      element: this.formElement()?.nativeElement,
+      injector: this.injector,
+      busy: this.submitting,
+      send: async () => {
+        await this.api.forgotPassword(this.form.getRawValue().email);
+        this.sent.set(true);
+        focusAfterRender(() => this.sentNotice()?.nativeElement, this.injector);
+      },
+    });
   }
 }

@@ -6,7 +6,7 @@ import { MatInput } from '@angular/material/input';
 import { Router } from '@angular/router';
 
 import { AuthService } from '../core/auth.service';
-import { applyServerErrors, fieldError, focusFirstInvalid } from '../core/form-errors';
+import { fieldError, submitForm } from '../core/form-errors';
 import { AccountApi } from './account-api';
 import { ROLE_LABELS } from './role-labels';
 
@@ -50,44 +50,34 @@ export class ProfilePage {
 
   protected async saveName(): Promise<void> {
     this.nameSaved.set(false);
-    if (this.profile.invalid) {
-      this.profile.markAllAsTouched();
-      focusFirstInvalid(this.nameForm().nativeElement, this.injector);
-      return;
-    }
-    this.savingName.set(true);
-    try {
-      this.auth.setUser(await this.api.updateProfile(this.profile.getRawValue().displayName));
-      this.profile.markAsPristine();
-      this.nameSaved.set(true);
-    } catch (error) {
-      applyServerErrors(this.profile, error);
-      focusFirstInvalid(this.nameForm().nativeElement, this.injector);
-    } finally {
-      this.savingName.set(false);
-    }
+    await submitForm({
+      form: this.profile,
+      element: this.nameForm().nativeElement,
+      injector: this.injector,
+      busy: this.savingName,
+      send: async () => {
+        this.auth.setUser(await this.api.updateProfile(this.profile.getRawValue().displayName));
+        this.profile.markAsPristine();
+        this.nameSaved.set(true);
+      },
+    });
   }
 
   protected async changePassword(): Promise<void> {
     this.passwordChanged.set(false);
-    if (this.password.invalid) {
-      this.password.markAllAsTouched();
-      focusFirstInvalid(this.passwordForm().nativeElement, this.injector);
-      return;
-    }
-    this.savingPassword.set(true);
-    try {
-      const { currentPassword, newPassword } = this.password.getRawValue();
-      await this.api.changePassword(currentPassword, newPassword);
-      // Through the directive, so the emptied fields are not shown as a submitted, empty form.
-      this.passwordFormDirective().resetForm();
-      this.passwordChanged.set(true);
-    } catch (error) {
-      applyServerErrors(this.password, error);
-      focusFirstInvalid(this.passwordForm().nativeElement, this.injector);
-    } finally {
-      this.savingPassword.set(false);
-    }
+    await submitForm({
+      form: this.password,
+      element: this.passwordForm().nativeElement,
+      injector: this.injector,
+      busy: this.savingPassword,
+      send: async () => {
+        const { currentPassword, newPassword } = this.password.getRawValue();
+        await this.api.changePassword(currentPassword, newPassword);
+        // Through the directive, so the emptied fields are not shown as a submitted, empty form.
+        this.passwordFormDirective().resetForm();
+        this.passwordChanged.set(true);
+      },
+    });
   }
 
   protected async signOut(): Promise<void> {

@@ -5,7 +5,7 @@ import { MatError, MatFormField, MatHint, MatLabel } from '@angular/material/for
 import { MatInput } from '@angular/material/input';
 import { RouterLink } from '@angular/router';
 
-import { applyServerErrors, fieldError, focusAfterRender, focusFirstInvalid } from '../core/form-errors';
+import { fieldError, focusAfterRender, submitForm } from '../core/form-errors';
 import { problemMessage } from '../core/problem';
 import { AccountApi } from './account-api';
 
@@ -68,29 +68,22 @@ export class ResetPasswordPage {
   protected readonly passwordMessages = { required: 'Choose a new password.', minlength: 'Use at least 8 characters.', maxlength: 'Use at most 1000 characters.' };
 
   protected async submit(): Promise<void> {
-    const formElement = this.formElement()?.nativeElement;
     this.refusal.set(null);
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      if (formElement) focusFirstInvalid(formElement, this.injector);
-      return;
-    }
-    this.submitting.set(true);
-    try {
-      await this.api.resetPassword(this.token() ?? '', this.form.getRawValue().password);
-      this.done.set(true);
-      focusAfterRender(() => this.outcomeNotice()?.nativeElement, this.injector);
-    } catch (error) {
-      const unmatched = applyServerErrors(this.form, error);
-      if (this.form.invalid && formElement) {
-        focusFirstInvalid(formElement, this.injector);
-      } else {
-        // The link is used up or expired (or the token field was refused): say so beside the form.
+    await submitForm({
+      form: this.form,
+      element: this.formElement()?.nativeElement,
+      injector: this.injector,
+      busy: this.submitting,
+      send: async () => {
+        await this.api.resetPassword(this.token() ?? '', this.form.getRawValue().password);
+        this.done.set(true);
+        focusAfterRender(() => this.outcomeNotice()?.nativeElement, this.injector);
+      },
+      // The link is used up or expired (or the token field was refused): say so beside the form.
+      onUnmatched: (error, unmatched) => {
         this.refusal.set(unmatched[0] ?? problemMessage(error));
         focusAfterRender(() => this.outcomeNotice()?.nativeElement, this.injector);
-      }
-    } finally {
-      this.submitting.set(false);
-    }
+      },
+    });
   }
 }

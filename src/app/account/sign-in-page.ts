@@ -7,7 +7,7 @@ import { Router, RouterLink } from '@angular/router';
 
 import type { DemoAccount } from '../../../shared/api/accounts';
 import { AuthService } from '../core/auth.service';
-import { applyServerErrors, fieldError, focusAfterRender, focusFirstInvalid } from '../core/form-errors';
+import { fieldError, focusAfterRender, submitForm } from '../core/form-errors';
 import { problemMessage } from '../core/problem';
 import { AccountApi } from './account-api';
 import { ROLE_LABELS } from './role-labels';
@@ -57,25 +57,19 @@ export class SignInPage {
 
   protected async submit(): Promise<void> {
     this.refusal.set(null);
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      focusFirstInvalid(this.formElement().nativeElement, this.injector);
-      return;
-    }
-    this.submitting.set(true);
-    try {
-      await this.auth.signIn(this.form.getRawValue());
-      await this.router.navigateByUrl(this.safeReturnUrl() ?? '/');
-    } catch (error) {
-      const unmatched = applyServerErrors(this.form, error);
-      if (this.form.invalid) {
-        focusFirstInvalid(this.formElement().nativeElement, this.injector);
-      } else {
+    await submitForm({
+      form: this.form,
+      element: this.formElement().nativeElement,
+      injector: this.injector,
+      busy: this.submitting,
+      send: async () => {
+        await this.auth.signIn(this.form.getRawValue());
+        await this.router.navigateByUrl(this.safeReturnUrl() ?? '/');
+      },
+      onUnmatched: (error, unmatched) => {
         this.refusal.set(unmatched[0] ?? problemMessage(error));
         focusAfterRender(() => this.refusalElement()?.nativeElement, this.injector);
-      }
-    } finally {
-      this.submitting.set(false);
-    }
+      },
+    });
   }
 }

@@ -8,7 +8,7 @@ import { MatRadioButton, MatRadioGroup } from '@angular/material/radio';
 import { RouterLink } from '@angular/router';
 
 import type { SignUpRequest } from '../../../shared/api/accounts';
-import { applyServerErrors, fieldError, focusAfterRender, focusFirstInvalid } from '../core/form-errors';
+import { fieldError, focusAfterRender, submitForm } from '../core/form-errors';
 import { AccountApi } from './account-api';
 
 type AccountType = SignUpRequest['accountType'];
@@ -57,26 +57,20 @@ export class SignUpPage {
   }
 
   protected async submit(): Promise<void> {
-    const formElement = this.formElement()?.nativeElement;
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      if (formElement) focusFirstInvalid(formElement, this.injector);
-      return;
-    }
-    this.submitting.set(true);
-    try {
-      const value = this.form.getRawValue();
-      const request: SignUpRequest =
-        value.accountType === 'shop_owner'
-          ? { accountType: 'shop_owner', displayName: value.displayName, email: value.email, password: value.password, shopName: value.shopName }
-          : { accountType: 'apprentice', displayName: value.displayName, email: value.email, password: value.password };
-      this.done.set(await this.api.signUp(request));
-      focusAfterRender(() => this.doneNotice()?.nativeElement, this.injector);
-    } catch (error) {
-      applyServerErrors(this.form, error);
-      if (formElement) focusFirstInvalid(formElement, this.injector);
-    } finally {
-      this.submitting.set(false);
-    }
+    await submitForm({
+      form: this.form,
+      element: this.formElement()?.nativeElement,
+      injector: this.injector,
+      busy: this.submitting,
+      send: async () => {
+        const value = this.form.getRawValue();
+        const request: SignUpRequest =
+          value.accountType === 'shop_owner'
+            ? { accountType: 'shop_owner', displayName: value.displayName, email: value.email, password: value.password, shopName: value.shopName }
+            : { accountType: 'apprentice', displayName: value.displayName, email: value.email, password: value.password };
+        this.done.set(await this.api.signUp(request));
+        focusAfterRender(() => this.doneNotice()?.nativeElement, this.injector);
+      },
+    });
   }
 }

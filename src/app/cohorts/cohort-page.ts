@@ -10,7 +10,7 @@ import { RouterLink } from '@angular/router';
 
 import type { CohortMemberView } from '../../../shared/api/accounts';
 import { askToConfirm } from '../core/confirm-dialog';
-import { applyServerErrors, fieldError, focusFirstInvalid } from '../core/form-errors';
+import { fieldError, submitForm } from '../core/form-errors';
 import { CohortsApi } from './cohorts-api';
 
 /** `/cohorts/:id`: one cohort's apprentices; add one by e-mail, remove one. */
@@ -40,27 +40,21 @@ export class CohortPage {
   protected readonly emailMessages = { required: 'Enter the apprentice’s e-mail address.', email: 'Enter an e-mail address like name@example.com.' };
 
   protected async add(): Promise<void> {
-    const formElement = this.formElement()?.nativeElement;
     this.added.set(null);
-    if (this.form.invalid) {
-      this.form.markAllAsTouched();
-      if (formElement) focusFirstInvalid(formElement, this.injector);
-      return;
-    }
-    this.adding.set(true);
-    try {
-      const email = this.form.getRawValue().email;
-      const updated = await this.api.addMember(this.id(), email);
-      this.cohort.set(updated);
-      // Through the directive, so the cleared field is not shown as a submitted, empty one.
-      this.formDirective()?.resetForm();
-      this.added.set(`${email} is in the cohort.`);
-    } catch (error) {
-      applyServerErrors(this.form, error);
-      if (formElement) focusFirstInvalid(formElement, this.injector);
-    } finally {
-      this.adding.set(false);
-    }
+    await submitForm({
+      form: this.form,
+      element: this.formElement()?.nativeElement,
+      injector: this.injector,
+      busy: this.adding,
+      send: async () => {
+        const email = this.form.getRawValue().email;
+        const updated = await this.api.addMember(this.id(), email);
+        this.cohort.set(updated);
+        // Through the directive, so the cleared field is not shown as a submitted, empty one.
+        this.formDirective()?.resetForm();
+        this.added.set(`${email} is in the cohort.`);
+      },
+    });
   }
 
   protected async remove(member: CohortMemberView): Promise<void> {

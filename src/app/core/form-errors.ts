@@ -1,4 +1,4 @@
-import { afterNextRender, type Injector } from '@angular/core';
+import { afterNextRender, type Injector, type WritableSignal } from '@angular/core';
 import type { AbstractControl, FormGroup } from '@angular/forms';
 
 import { problemOf } from './problem';
@@ -39,4 +39,42 @@ export function focusFirstInvalid(form: HTMLElement, injector: Injector): void {
 /** After the next render, moves focus to an element that announces an outcome (a heading, a message). */
 export function focusAfterRender(target: () => HTMLElement | undefined, injector: Injector): void {
   afterNextRender(() => target()?.focus(), { injector });
+}
+
+export interface FormSubmission {
+  readonly form: FormGroup;
+  /** The `<form>` element, to move focus to the first field in error. */
+  readonly element: HTMLElement | undefined;
+  readonly injector: Injector;
+  /** True while `send` runs (disables the submit button). */
+  readonly busy: WritableSignal<boolean>;
+  readonly send: () => Promise<void>;
+  /** A refusal no field took (say, an expired link): the page says so its own way. */
+  readonly onUnmatched?: (error: unknown, unmatched: string[]) => void;
+}
+
+/**
+ * Every form's submit: an invalid form is not sent (its fields show their errors and the first
+ * takes focus); otherwise `send` runs with `busy` set, and a refusal's field errors go beside
+ * their fields, focus on the first of them.
+ */
+export async function submitForm({ form, element, injector, busy, send, onUnmatched }: FormSubmission): Promise<void> {
+  if (form.invalid) {
+    form.markAllAsTouched();
+    if (element) focusFirstInvalid(element, injector);
+    return;
+  }
+  busy.set(true);
+  try {
+    await send();
+  } catch (error) {
+    const unmatched = applyServerErrors(form, error);
+    if (form.invalid) {
+      if (element) focusFirstInvalid(element, injector);
+    } else {
+      onUnmatched?.(error, unmatched);
+    }
+  } finally {
+    busy.set(false);
+  }
 }
