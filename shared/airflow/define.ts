@@ -28,7 +28,13 @@ export interface InputSpec {
   defaultUnit?: UnitPair;
   min?: Bound;
   max?: Bound;
+  /** The worked example, mostly in US units; lessons, the API and the US form use it. */
   example?: InputValue;
+  /**
+   * The worked example for a form in SI units, a round figure of its own rather than `example`
+   * converted. Leave it out when `example` is unit-neutral or already reads well in SI.
+   */
+  exampleSi?: InputValue;
   /** Used when the input is optional and left empty. */
   default?: InputValue;
   options?: readonly OptionChoice[];
@@ -112,6 +118,7 @@ export function toSummary(def: CalculatorDefinition): CalculatorSummary {
       ...(spec.min === undefined ? {} : { min: spec.min }),
       ...(spec.max === undefined ? {} : { max: spec.max }),
       ...(spec.example === undefined ? {} : { example: spec.example }),
+      ...(spec.exampleSi === undefined ? {} : { exampleSi: spec.exampleSi }),
       ...(spec.default === undefined ? {} : { default: spec.default }),
       ...(spec.options === undefined ? {} : { options: spec.options.map((o) => ({ ...o })) }),
     };
@@ -137,7 +144,10 @@ export function toSummary(def: CalculatorDefinition): CalculatorSummary {
   };
 }
 
-/** The request that "reset to example" fills in: every example, one member per one-of group. */
+/**
+ * The example request: every `example` (never `exampleSi`, so lessons' result lines and the API
+ * keep their figures), one member per one-of group.
+ */
 export function exampleInputs(def: CalculatorDefinition): Record<string, InputValue> {
   const inputs: Record<string, InputValue> = {};
   const groupsUsed = new Set<string>();

@@ -19,5 +19,5 @@ export type {
   UnitPair,
 } from './types';
 export { describeCalculator, evaluate, exampleRequest, listCalculators, withExampleDefaults } from './catalogue';
-export { convert, DEFAULT_UNITS, isUnitOf, SI_UNIT, UNITS_BY_KIND } from './units';
+export { convert, DEFAULT_UNITS, isUnitOf, isUsCustomary, SI_UNIT, UNITS_BY_KIND } from './units';
 export { STANDARD_CONDITIONS, type StandardCondition } from './standard-conditions';

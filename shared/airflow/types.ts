@@ -102,8 +102,13 @@ export interface InputSummary {
   defaultUnit?: UnitPair;
   min?: Bound;
   max?: Bound;
-  /** Value for "reset to example". */
+  /** Value for "reset to example", and what lessons and the API's example request use. */
   example?: InputValue;
+  /**
+   * The example in SI for a form in SI units: a round figure of its own (70 kPa, not 10 psi
+   * converted to 68.9476 kPa). Absent when `example` already reads well in SI.
+   */
+  exampleSi?: InputValue;
   /** Value used when an optional input is left empty. */
   default?: InputValue;
   options?: OptionChoice[];

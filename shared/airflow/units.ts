@@ -17,6 +17,8 @@
 import { create, createUnitDependencies, unitDependencies } from 'mathjs';
 import type { QuantityKind, UnitPair } from './types';
 
+export { isUsCustomary } from './us-customary';
+
 /** Standard acceleration of gravity, m/s² (NIST SP 811 B.8: g_n = 9.806 65 m/s², exact). */
 export const STANDARD_GRAVITY = 9.80665;
 const INCH_M = 0.0254; // NIST SP 811 B.8: inch → metre 2.54 E−02 (exact)

@@ -13,8 +13,12 @@ export const airDensity = defineCalculator({
   inputs: {
     temperature: airTemperature('Air temperature', 'T', { value: 20, unit: 'degC' },
       'Dry-bulb temperature of the air entering the bench or engine.'),
-    pressure: absolutePressure('Barometric pressure (absolute)', 'p', { value: 1013.25, unit: 'hPa' },
-      'Station pressure from a barometer, absolute — not the sea-level figure of a weather report.'),
+    pressure: {
+      ...absolutePressure('Barometric pressure (absolute)', 'p', { value: 1013.25, unit: 'hPa' },
+        'Station pressure from a barometer, absolute — not the sea-level figure of a weather report.'),
+      // A barometer read to the whole hectopascal; the example keeps ISO 2533's 1013.25 hPa for lessons.
+      exampleSi: { value: 1013, unit: 'hPa' },
+    },
     relativeHumidity: { ...relativeHumidity({ value: 50, unit: '%' }), group: 'humidity' },
     dewPoint: {
       ...airTemperature('Dew point', 'T_{d}', { value: 10, unit: 'degC' },

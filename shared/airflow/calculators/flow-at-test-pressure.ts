@@ -18,12 +18,20 @@ export const flowAtTestPressure = defineCalculator({
       kind: 'volumeFlow',
       min: { value: 0, unit: 'm^3/s', inclusive: false },
       example: { value: 200, unit: 'cfm' },
+      exampleSi: { value: 100, unit: 'L/s' },
       help: 'The volume flow read at the first test pressure.',
     },
-    fromPressureDrop: pressureDrop('Test pressure of the reading', '\\Delta p_{1}', { value: 10, unit: 'inH2O' },
-      'The pressure drop across the part when the reading was taken.'),
-    toPressureDrop: pressureDrop('Test pressure wanted', '\\Delta p_{2}', { value: 28, unit: 'inH2O' },
-      'The pressure drop you want the flow quoted at (28 inH2O is a common choice for heads).'),
+    fromPressureDrop: {
+      ...pressureDrop('Test pressure of the reading', '\\Delta p_{1}', { value: 10, unit: 'inH2O' },
+        'The pressure drop across the part when the reading was taken.'),
+      exampleSi: { value: 2.5, unit: 'kPa' },
+    },
+    toPressureDrop: {
+      ...pressureDrop('Test pressure wanted', '\\Delta p_{2}', { value: 28, unit: 'inH2O' },
+        'The pressure drop you want the flow quoted at (28 inH2O, about 7 kPa, is a common choice for heads).'),
+      // 7 kPa: the metric shops' round figure for the 28 inH2O head test pressure (shop common practice).
+      exampleSi: { value: 7, unit: 'kPa' },
+    },
   },
   outputs: {
     flow: { label: 'Flow at the wanted test pressure', symbol: 'Q_{2}', kind: 'volumeFlow', us: 'cfm' },

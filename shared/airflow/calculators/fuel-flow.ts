@@ -23,6 +23,7 @@ export const fuelFlow = defineCalculator({
       kind: 'massFlow',
       min: bound(0, 'kg/s', false),
       example: { value: 35, unit: 'lb/min' },
+      exampleSi: { value: 250, unit: 'g/s' },
       help: 'From the mass-flow or engine-demand calculators, or a mass-air sensor.',
     },
     airFuelRatio: ratio('Air–fuel ratio (by mass)', 'AFR', 'Mass of air per mass of fuel, e.g. 12.5 for a rich full-load gasoline mixture.', { group: 'mixture', example: 12.5 }),

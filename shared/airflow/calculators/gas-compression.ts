@@ -6,9 +6,9 @@ import { COMPRESSED_AIR_HAZARD } from './hazards';
 
 const IDEAL_GAS_LIMIT_PA = 2e6;
 
-const absolute = (label: string, symbol: string, example: { value: number; unit: string }) => ({
-  label, symbol, kind: 'pressure' as const, min: ABOVE_ZERO_PA, example,
-  help: 'ABSOLUTE pressure: add the barometric pressure (about 14.7 psi, shop common practice) to a gauge reading.',
+const absolute = (label: string, symbol: string, example: { value: number; unit: string }, exampleSi: { value: number; unit: string }) => ({
+  label, symbol, kind: 'pressure' as const, min: ABOVE_ZERO_PA, example, exampleSi,
+  help: 'ABSOLUTE pressure: add the barometric pressure (about 14.7 psi or 100 kPa, shop common practice) to a gauge reading.',
 });
 
 export const gasCompression = defineCalculator({
@@ -19,7 +19,9 @@ export const gasCompression = defineCalculator({
     'Volume of a fixed mass of air after its pressure and temperature change: p₁V₁/T₁ = p₂V₂/T₂ (Boyle\'s law when the temperature stays the same, Charles\'s law when the pressure does).',
   hazard: COMPRESSED_AIR_HAZARD,
   inputs: {
-    pressure1: absolute('Starting pressure (absolute)', 'p_{1}', { value: 14.7, unit: 'psi' }),
+    // 100 kPa (1 bar) for the atmosphere, and 800 kPa absolute for a 7 bar gauge workshop line:
+    // the metric shop's round figures (shop common practice).
+    pressure1: absolute('Starting pressure (absolute)', 'p_{1}', { value: 14.7, unit: 'psi' }, { value: 100, unit: 'kPa' }),
     volume1: {
       label: 'Starting volume',
       symbol: 'V_{1}',
@@ -27,10 +29,11 @@ export const gasCompression = defineCalculator({
       defaultUnit: { si: 'L', us: 'ft^3' },
       min: bound(0, 'm^3', false),
       example: { value: 10, unit: 'ft^3' },
+      exampleSi: { value: 300, unit: 'L' },
       help: 'Volume the air takes at the starting pressure and temperature.',
     },
     temperature1: airTemperature('Starting temperature', 'T_{1}', { value: 20, unit: 'degC' }, 'Air temperature at the start.'),
-    pressure2: absolute('Final pressure (absolute)', 'p_{2}', { value: 114.7, unit: 'psi' }),
+    pressure2: absolute('Final pressure (absolute)', 'p_{2}', { value: 114.7, unit: 'psi' }, { value: 800, unit: 'kPa' }),
     temperature2: {
       ...airTemperature('Final temperature', 'T_{2}', { value: 40, unit: 'degC' }, 'Air temperature at the end. Empty: same as the start (Boyle\'s law).'),
       optional: true,

@@ -18,6 +18,8 @@ export const manometer = defineCalculator({
       kind: 'length',
       group: 'column',
       example: { value: 10, unit: 'in' },
+      // About 2.45 kPa of water: the same job as the 10 in example, in a metric rule's figure.
+      exampleSi: { value: 250, unit: 'mm' },
       help: 'Difference between the two liquid levels (read both legs of a U-tube). Negative for suction if you keep the sign.',
     },
     pressure: {

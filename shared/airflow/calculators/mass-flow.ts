@@ -16,6 +16,7 @@ export const massFlow = defineCalculator({
       group: 'flow',
       min: bound(0, 'm^3/s'),
       example: { value: 450, unit: 'cfm' },
+      exampleSi: { value: 200, unit: 'L/s' },
       help: 'Volume flow measured where the air has the density given below.',
     },
     massFlow: {
@@ -25,10 +26,15 @@ export const massFlow = defineCalculator({
       group: 'flow',
       min: bound(0, 'kg/s'),
       example: { value: 35, unit: 'lb/min' },
+      exampleSi: { value: 250, unit: 'g/s' },
       help: 'Give a mass flow instead to find the volume it takes at this density.',
     },
-    density: density('Air density', { value: 0.075, unit: 'lb/ft^3' },
-      'Density of the air where the volume flow is measured (0.075 lb/ft³ is US standard air, shop common practice).'),
+    density: {
+      ...density('Air density', { value: 0.075, unit: 'lb/ft^3' },
+        'Density of the air where the volume flow is measured (0.075 lb/ft³, or 1.2 kg/m³, is the usual round figure for standard air, shop common practice).'),
+      // 1.2 kg/m³: air near 20 °C at sea level, the metric round figure (shop common practice).
+      exampleSi: { value: 1.2, unit: 'kg/m^3' },
+    },
   },
   groups: [{ id: 'flow', label: 'Volume flow or mass flow', inputs: ['volumeFlow', 'massFlow'], required: true }],
   outputs: {

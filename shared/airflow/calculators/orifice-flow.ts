@@ -57,6 +57,8 @@ export const orificeFlow = defineCalculator({
     pressureDrop: {
       ...pressureDrop('Pressure drop', '\\Delta p', { value: 28, unit: 'inH2O' },
         'Pressure difference across the orifice (the test pressure). Needed unless you solve for it.'),
+      // 7 kPa: the metric round figure for a 28 inH2O test pressure (shop common practice).
+      exampleSi: { value: 7, unit: 'kPa' },
       optional: true,
     },
     density: density('Air density', { value: 1.2, unit: 'kg/m^3' },

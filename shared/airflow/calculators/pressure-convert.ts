@@ -18,6 +18,7 @@ export const pressureConvert = defineCalculator({
       symbol: 'p',
       kind: 'pressure',
       example: { value: 30, unit: 'psi' },
+      exampleSi: { value: 200, unit: 'kPa' },
       help: 'The reading to convert. Choose below whether it is absolute or gauge.',
     },
     kind: {
@@ -34,6 +35,7 @@ export const pressureConvert = defineCalculator({
     ambient: {
       ...absolutePressure('Ambient (barometric) pressure', 'p_{amb}', { value: 29.92, unit: 'inHg' },
         'Station pressure from a barometer (not the sea-level figure a weather report gives). Left empty: 101.325 kPa, the standard sea-level atmosphere.'),
+      exampleSi: { value: 1013, unit: 'hPa' },
       optional: true,
       default: { value: STANDARD_AMBIENT_PA, unit: 'Pa' },
     },

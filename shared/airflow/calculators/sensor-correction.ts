@@ -32,12 +32,20 @@ export const sensorCorrection = defineCalculator({
       kind: 'volumeFlow',
       min: bound(0, 'm^3/s', false),
       example: { value: 300, unit: 'cfm' },
+      exampleSi: { value: 150, unit: 'L/s' },
       help: 'The bench reading, referred to the ambient (inlet) air.',
     },
-    testPressure: pressureDrop('Test pressure', '\\Delta p_{t}', { value: 28, unit: 'inH2O' },
-      'The pressure drop the bench held across sensor and part together.'),
-    sensorPressureDrop: pressureDrop('Sensor pressure drop', '\\Delta p_{s,ref}', { value: 1.5, unit: 'inH2O' },
-      'Pressure drop across the sensor alone, read with a manometer across it during the test, or measured separately at the reference flow below.'),
+    testPressure: {
+      ...pressureDrop('Test pressure', '\\Delta p_{t}', { value: 28, unit: 'inH2O' },
+        'The pressure drop the bench held across sensor and part together.'),
+      // 7 kPa: the metric round figure for a 28 inH2O test pressure (shop common practice).
+      exampleSi: { value: 7, unit: 'kPa' },
+    },
+    sensorPressureDrop: {
+      ...pressureDrop('Sensor pressure drop', '\\Delta p_{s,ref}', { value: 1.5, unit: 'inH2O' },
+        'Pressure drop across the sensor alone, read with a manometer across it during the test, or measured separately at the reference flow below.'),
+      exampleSi: { value: 0.4, unit: 'kPa' },
+    },
     sensorReferenceFlow: {
       label: 'Flow at which the sensor drop was measured',
       symbol: 'Q_{ref}',
@@ -46,7 +54,10 @@ export const sensorCorrection = defineCalculator({
       min: bound(0, 'm^3/s', false),
       help: 'Empty: the sensor drop was read during this same test, at the measured flow.',
     },
-    ambientPressure: absolutePressure('Ambient pressure (absolute)', 'p_{a}', { value: 29.92, unit: 'inHg' }, 'Barometric pressure at the bench.'),
+    ambientPressure: {
+      ...absolutePressure('Ambient pressure (absolute)', 'p_{a}', { value: 29.92, unit: 'inHg' }, 'Barometric pressure at the bench.'),
+      exampleSi: { value: 1013, unit: 'hPa' },
+    },
   },
   outputs: {
     correctedFlow: { label: 'Flow of the part alone at the test pressure', symbol: 'Q_{c}', kind: 'volumeFlow', us: 'cfm' },

@@ -18,10 +18,18 @@ export const standardFlow = defineCalculator({
       kind: 'volumeFlow',
       min: bound(0, 'm^3/s', false),
       example: { value: 250, unit: 'cfm' },
+      exampleSi: { value: 120, unit: 'L/s' },
       help: 'The flow to correct: the actual flow read today, or a standard flow when converting back.',
     },
-    temperature: airTemperature('Test air temperature', 'T', { value: 77, unit: 'degF' }, 'Temperature of the air the bench or engine drew in during the test.'),
-    pressure: absolutePressure('Barometric pressure (absolute)', 'p', { value: 29.1, unit: 'inHg' }, 'Station pressure during the test, from a barometer.'),
+    temperature: {
+      ...airTemperature('Test air temperature', 'T', { value: 77, unit: 'degF' }, 'Temperature of the air the bench or engine drew in during the test.'),
+      exampleSi: { value: 25, unit: 'degC' },
+    },
+    pressure: {
+      ...absolutePressure('Barometric pressure (absolute)', 'p', { value: 29.1, unit: 'inHg' }, 'Station pressure during the test, from a barometer.'),
+      // A shop a few hundred metres up, like the 29.1 inHg of the US example.
+      exampleSi: { value: 980, unit: 'hPa' },
+    },
     relativeHumidity: { ...relativeHumidity({ value: 40, unit: '%' }), optional: true, default: 0 },
     standard: {
       label: 'Standard condition',

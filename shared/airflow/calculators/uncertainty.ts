@@ -49,8 +49,12 @@ export const uncertainty = defineCalculator({
     pressureUncertainty: plusMinus('± pressure', 'a_{p}', 'pressure', 'Pa', { value: 50, unit: 'Pa' }),
     relativeHumidity: { ...relativeHumidity({ value: 50, unit: '%' }), optional: true, default: 0 },
     relativeHumidityUncertainty: { ...plusMinus('± relative humidity', 'a_{h}', 'percent', '%', { value: 3, unit: '%' }), max: bound(100, '%') },
-    volumeFlow: { label: 'Volume flow', symbol: 'Q', kind: 'volumeFlow', optional: true, min: bound(0, 'm^3/s'), example: { value: 300, unit: 'cfm' }, help: 'For mass flow.' },
-    volumeFlowUncertainty: plusMinus('± volume flow', 'a_{Q}', 'volumeFlow', 'm^3/s', { value: 6, unit: 'cfm' }),
+    volumeFlow: {
+      label: 'Volume flow', symbol: 'Q', kind: 'volumeFlow', optional: true, min: bound(0, 'm^3/s'),
+      example: { value: 300, unit: 'cfm' }, exampleSi: { value: 150, unit: 'L/s' }, help: 'For mass flow.',
+    },
+    // ±2 % of the flow in both examples.
+    volumeFlowUncertainty: { ...plusMinus('± volume flow', 'a_{Q}', 'volumeFlow', 'm^3/s', { value: 6, unit: 'cfm' }), exampleSi: { value: 3, unit: 'L/s' } },
     density: { label: 'Air density', symbol: '\\rho', kind: 'density', optional: true, min: bound(0, 'kg/m^3', false), example: { value: 1.2, unit: 'kg/m^3' }, help: 'For mass flow.' },
     densityUncertainty: plusMinus('± density', 'a_{\\rho}', 'density', 'kg/m^3', { value: 0.005, unit: 'kg/m^3' }),
   },

@@ -20,11 +20,11 @@ describe('form state', () => {
     const summary = calculator('air-density');
     const us = convertToSystem(summary, exampleState(summary, 'si'), 'us');
     expect(us.quantities['temperature']).toEqual({ text: '68', unit: 'degF' });
-    expect(us.quantities['pressure']).toEqual({ text: '29.9213', unit: 'inHg' });
+    expect(us.quantities['pressure']).toEqual({ text: '29.9139', unit: 'inHg' });
     expect(us.outputUnits['density']).toBe('lb/ft^3');
     const si = convertToSystem(summary, us, 'si');
     expect(si.quantities['temperature']).toEqual({ text: '20', unit: 'degC' });
-    expect(si.quantities['pressure']).toEqual({ text: '1013.25', unit: 'hPa' });
+    expect(si.quantities['pressure']).toEqual({ text: '1013', unit: 'hPa' });
   });
 
   it('converts a temperature difference without the °C/°F offset', () => {
@@ -51,7 +51,42 @@ describe('form state', () => {
     const summary = calculator('air-density');
     const evaluation = calculate(summary, exampleState(summary, 'si'));
     expect(evaluation.messages).toEqual([]);
-    expect(evaluation.result?.outputs['density']?.value).toBeCloseTo(1.1993, 4);
+    // The engine's CIPM-2007 figure for the SI example: 20 °C, 1013 hPa, 50 % RH.
+    expect(evaluation.result?.outputs['density']?.value).toBeCloseTo(1.1990, 4);
+  });
+});
+
+describe('the worked example in each unit system', () => {
+  it('opens in SI in round figures of its own, not the US example converted', () => {
+    const summary = calculator('boost');
+    const si = exampleState(summary, 'si');
+    expect(si.quantities['boostPressure']).toEqual({ text: '70', unit: 'kPa' });
+    expect(si.quantities['ambientPressure']).toEqual({ text: '1013', unit: 'hPa' });
+    expect(si.quantities['inletTemperature']).toEqual({ text: '25', unit: 'degC' });
+    expect(calculate(summary, si).messages).toEqual([]);
+  });
+
+  it('opens in US units as the example is written', () => {
+    const summary = calculator('boost');
+    const us = exampleState(summary, 'us');
+    expect(us.quantities['boostPressure']).toEqual({ text: '10', unit: 'psi' });
+    expect(us.quantities['ambientPressure']).toEqual({ text: '14.7', unit: 'psi' });
+    expect(us.quantities['inletTemperature']).toEqual({ text: '77', unit: 'degF' });
+  });
+
+  it('picks the one-of member that has an SI example', () => {
+    const summary = calculator('manometer');
+    const si = exampleState(summary, 'si');
+    expect(si.picks['column']).toBe('height');
+    expect(si.quantities['height']).toEqual({ text: '250', unit: 'mm' });
+  });
+
+  it('falls back to the converted example where an input has no SI example', () => {
+    const summary = calculator('boost');
+    const boostPressure = summary.inputs.find((input) => input.name === 'boostPressure')!;
+    delete boostPressure.exampleSi;
+    // 10 psi is 68.9476 kPa (NIST SP 811: 1 psi = 6.894 757 kPa).
+    expect(exampleState(summary, 'si').quantities['boostPressure']).toEqual({ text: '68.9476', unit: 'kPa' });
   });
 });
 

@@ -77,14 +77,15 @@ export function blankState(summary: CalculatorSummary, system: UnitSystem): Form
 }
 
 /**
- * The calculator's worked example. Values keep the units the example was written in when those
- * belong to the chosen system (a barometer read in inHg stays 29.92 inHg in US units); a value in
- * the other system's units is converted to the input's default unit.
+ * The calculator's worked example. In SI an input's own SI example comes first (70 kPa, as
+ * written); otherwise values keep the units the example was written in when those belong to the
+ * chosen system (a barometer read in inHg stays 29.92 inHg in US units), and a value in the other
+ * system's units is converted to the input's default unit.
  */
 export function exampleState(summary: CalculatorSummary, system: UnitSystem): FormState {
   const state = blankState(summary, system);
   for (const input of summary.inputs) {
-    const example = input.example;
+    const example = exampleFor(input, system);
     if (example === undefined) continue;
     if (input.kind === 'option') {
       if (typeof example === 'string') state.options[input.name] = example;
@@ -94,10 +95,15 @@ export function exampleState(summary: CalculatorSummary, system: UnitSystem): Fo
     if (given !== undefined) state.quantities[input.name] = inSystem(input, given, system);
   }
   for (const group of summary.groups) {
-    const first = group.inputs.find((name) => summary.inputs.some((i) => i.name === name && i.example !== undefined));
+    const first = group.inputs.find((name) => summary.inputs.some((i) => i.name === name && exampleFor(i, system) !== undefined));
     if (first !== undefined) state.picks[group.id] = first;
   }
   return state;
+}
+
+/** The example an input shows in a unit system: its SI example in SI, where it has one. */
+function exampleFor(input: InputSummary, system: UnitSystem): InputValue | undefined {
+  return system === 'si' ? (input.exampleSi ?? input.example) : input.example;
 }
 
 /**

@@ -25,7 +25,7 @@ describe('share links', () => {
     const summary = calculator('air-density');
     expect(encodeShareLink(summary, exampleState(summary, 'si'), 'si')).toEqual({
       temperature: '20~degC',
-      pressure: '1013.25~hPa',
+      pressure: '1013~hPa',
       relativeHumidity: '50~pct',
       method: 'cipm2007',
       units: 'si',
