@@ -4,6 +4,9 @@ import { expect, test, type Locator, type Page } from '@playwright/test';
 // Expected figures are the engine's own (CIPM-2007 moist-air density, shared/airflow), as the
 // page must show them; the engine's tests check those against the published references.
 
+// A British browser, so the pages open in SI as the figures below expect (Playwright's default, en-US, opens in US units).
+test.use({ locale: 'en-GB' });
+
 const airDensity = 'Air density from temperature, pressure and humidity';
 const topics = ['Pressure', 'Flow', 'Air density', 'Mass flow', 'Forced induction', 'Sensors and uncertainty'];
 

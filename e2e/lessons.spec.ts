@@ -4,6 +4,9 @@ import { expect, test, type Locator, type Page } from '@playwright/test';
 // Lesson 1 and 2 as content/lessons/ has them; expected figures are the engine's own
 // (shared/airflow), as the embedded calculator must show them.
 
+// A British browser, so the pages open in SI as the figures below expect (Playwright's default, en-US, opens in US units).
+test.use({ locale: 'en-GB' });
+
 const pressureLesson = 'Pressure — absolute, gauge and differential';
 const pressureCalculator = 'Pressure: units, absolute and gauge';
 

@@ -3,7 +3,15 @@ import type { User } from './user.entity';
 
 /** The only shapes in which a user leaves the server: never the hash or the sign-in counters. */
 export function toAccount(user: User): Account {
-  return { id: user.id, email: user.email, displayName: user.displayName, role: user.role, verified: user.verifiedAt !== null, shopId: user.shopId };
+  return {
+    id: user.id,
+    email: user.email,
+    displayName: user.displayName,
+    role: user.role,
+    verified: user.verifiedAt !== null,
+    shopId: user.shopId,
+    unitSystem: user.unitSystem,
+  };
 }
 
 export function toUserSummary(user: User): UserSummary {

@@ -1,6 +1,6 @@
 import { Column, CreateDateColumn, Entity, Index, JoinColumn, ManyToOne, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm';
 
-import { ROLES, type Role } from '../../shared/api/accounts';
+import { ROLES, UNIT_SYSTEMS, type Role, type UnitSystem } from '../../shared/api/accounts';
 import { Shop } from '../shops/shop.entity';
 
 /**
@@ -48,6 +48,10 @@ export class User {
 
   @Column({ name: 'last_failed_sign_in_at', type: 'timestamptz', nullable: true })
   lastFailedSignInAt!: Date | null;
+
+  /** The calculators' units, saved on the user's first US/SI switch; null until then. */
+  @Column({ name: 'unit_system', type: 'enum', enum: UNIT_SYSTEMS, enumName: 'unit_system', nullable: true })
+  unitSystem!: UnitSystem | null;
 
   @CreateDateColumn({ name: 'created_at', type: 'timestamptz', default: () => 'now()' })
   createdAt!: Date;

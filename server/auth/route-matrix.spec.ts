@@ -75,6 +75,10 @@ const MATRIX: Record<string, Row> = {
     request: () => ({ method: 'patch', path: '/api/account/profile', body: { displayName: 'Renamed in the matrix' } }),
     expect: [401, 200, 200, 200, 200, 200],
   },
+  'PATCH /api/account/preferences': {
+    request: () => ({ method: 'patch', path: '/api/account/preferences', body: { unitSystem: 'us' } }),
+    expect: [401, 200, 200, 200, 200, 200],
+  },
 
   'GET /api/admin/users': { request: get('/api/admin/users?role=admin&sort=email&order=asc'), expect: [401, 403, 403, 403, 200, 403] },
   'PATCH /api/admin/users/:id': {

@@ -4,6 +4,10 @@ import { z } from 'zod';
 export const ROLES = ['apprentice', 'instructor', 'shop_owner', 'admin'] as const;
 export type Role = (typeof ROLES)[number];
 
+/** The units a reader works in: SI, or US customary (the calculators' US/SI switch). */
+export const UNIT_SYSTEMS = ['si', 'us'] as const;
+export type UnitSystem = (typeof UNIT_SYSTEMS)[number];
+
 const email = z.string().trim().toLowerCase().pipe(z.email({ error: 'Enter an e-mail address like name@example.com.' })).pipe(z.string().max(254));
 /** Length only: at least 8 characters, no composition rules; long passphrases welcome (up to 1000). */
 const newPassword = z.string().min(8, 'Use at least 8 characters.').max(1000, 'Use at most 1000 characters.');
@@ -42,6 +46,12 @@ export const resetPasswordSchema = z.object({ token, password: newPassword }).st
 export const changePasswordSchema = z.object({ currentPassword: anyPassword, newPassword }).strict();
 export const profileSchema = z.object({ displayName }).strict();
 
+/** `PATCH /api/account/preferences`: the reader's choices that follow the account to any device. */
+export const preferencesSchema = z
+  .object({ unitSystem: z.enum(UNIT_SYSTEMS, { error: 'Choose "si" or "us".' }) })
+  .strict();
+export type PreferencesRequest = z.infer<typeof preferencesSchema>;
+
 /** `PATCH /api/admin/users/:id`: a new role and/or enabling/disabling the account. */
 export const adminUserChangeSchema = z
   .object({ role: z.enum(ROLES).optional(), disabled: z.boolean().optional() })
@@ -77,6 +87,8 @@ export interface Account {
   role: Role;
   verified: boolean;
   shopId: string | null;
+  /** The units saved with the account; null until the user first switches (the browser's choice holds). */
+  unitSystem: UnitSystem | null;
 }
 export interface MeResponse {
   user: Account | null;

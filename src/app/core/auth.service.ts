@@ -2,7 +2,7 @@ import { HttpClient } from '@angular/common/http';
 import { Injectable, computed, inject, signal } from '@angular/core';
 import { firstValueFrom } from 'rxjs';
 
-import type { Account, MeResponse, Role, SignInRequest } from '../../../shared/api/accounts';
+import type { Account, MeResponse, PreferencesRequest, Role, SignInRequest } from '../../../shared/api/accounts';
 import { problemDisplay } from './problem';
 
 /**
@@ -46,6 +46,16 @@ export class AuthService {
     } finally {
       this.current.set(null);
     }
+  }
+
+  /**
+   * Saves choices that follow the account to other devices (the calculators' units). A refusal shows
+   * in the snackbar like any failed change; success says nothing. The answer updates the account only
+   * if the same person is still signed in.
+   */
+  async savePreferences(preferences: PreferencesRequest): Promise<void> {
+    const { user } = await firstValueFrom(this.http.patch<{ user: Account }>('/api/account/preferences', preferences));
+    if (this.current()?.id === user.id) this.current.set(user);
   }
 
   /** After the server answered with a changed account (profile) or said the session is gone (401). */
