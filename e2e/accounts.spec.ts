@@ -61,6 +61,8 @@ function accountMenu(page: Page, displayName: string) {
 
 test.describe('accounts', () => {
   test.skip(!maildevApiUrl, 'MAILDEV_API_URL is not set: run with `npm test`, which starts the mail catcher');
+  // Several pages, an e-mail round trip and real-cost (12) password hashes on the server each.
+  test.slow();
 
   test('sign up, confirm the address from the e-mail, sign in and sign out', async ({ page }) => {
     const email = uniqueEmail('signup');
@@ -166,28 +168,33 @@ test.describe('accounts', () => {
   });
 });
 
-test('the sign-in and sign-up pages have no serious or critical accessibility violations', async ({ page }) => {
-  const scan = async (label: string) => {
-    const results = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze();
-    const blocking = results.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
-    expect(blocking.map((v) => `${label}: ${v.id}: ${v.help} (${v.nodes.length})`)).toEqual([]);
-  };
+async function expectNoBlockingViolations(page: Page, label: string): Promise<void> {
+  const results = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze();
+  const blocking = results.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+  expect(blocking.map((v) => `${label}: ${v.id}: ${v.help} (${v.nodes.length})`)).toEqual([]);
+}
+
+test('the sign-in page has no serious or critical accessibility violations, with or without errors', async ({ page }) => {
+  test.slow(); // two whole-page axe scans
   await page.goto('/account/sign-in');
   await expect(page.getByRole('heading', { level: 1, name: 'Sign in' })).toBeVisible();
-  await scan('sign-in');
+  await expectNoBlockingViolations(page, 'sign-in');
   // With the errors showing too: each beside its field.
   await page.getByRole('button', { name: 'Sign in', exact: true }).click();
   await expect(page.getByText('Enter your e-mail address.')).toBeVisible();
   await expect(page.getByLabel('E-mail address')).toBeFocused();
-  await scan('sign-in with errors');
+  await expectNoBlockingViolations(page, 'sign-in with errors');
+});
 
+test('the sign-up page with its errors has no serious or critical accessibility violations', async ({ page }) => {
+  test.slow(); // a whole-page axe scan
   await page.goto('/account/sign-up');
   await expect(page.getByRole('heading', { level: 1, name: 'Create an account' })).toBeVisible();
   await page.getByRole('radio', { name: 'A shop owner' }).check();
   await expect(page.getByLabel('Shop name')).toBeVisible();
   await page.getByRole('button', { name: 'Create account' }).click();
   await expect(page.getByText('Enter the name of your shop.')).toBeVisible();
-  await scan('sign-up with errors');
+  await expectNoBlockingViolations(page, 'sign-up with errors');
 });
 
 test('the old /sign-in address leads to the sign-in page', async ({ page }) => {

@@ -44,6 +44,7 @@ function resultValue(page: Page, output: string): Locator {
 }
 
 test('a visitor works out air density, copies the link, and the link opens the same calculation', async ({ page, context, baseURL }) => {
+  test.slow(); // the list, a calculation in US units, then the shared link in a second page
   await context.grantPermissions(['clipboard-read', 'clipboard-write'], { origin: baseURL });
   const errors = watchErrors(page);
   await page.goto('/calculators');
@@ -112,6 +113,7 @@ test('an impossible humidity is refused beside the field, and fixing it brings t
 });
 
 test('the US/SI switch converts what was typed and keeps the physical result', async ({ page }) => {
+  test.slow(); // two visits and four conversions, each waiting for the result
   // The SI example: 20 °C, 1013 hPa, 50 % (its own round figures).
   await page.goto('/calculators/air-density');
   await expect(numberField(page, 'Air temperature')).toHaveValue('20');
@@ -155,20 +157,21 @@ test('reset to example fills the worked example back in and shows its result', a
   await expect(resultValue(page, 'Air density')).toHaveText('1.199');
 });
 
-test('a calculator page has no serious or critical accessibility violations, in either theme', async ({ page }) => {
-  await page.goto('/calculators/flow-at-test-pressure');
-  await expect(page.getByRole('note').filter({ hasText: 'Safety' })).toContainText('local codes');
-  await expect(resultValue(page, 'Flow')).not.toBeEmpty();
-  await expect(page.getByRole('region', { name: 'Worked steps' }).getByRole('math').first()).toBeAttached();
-  for (const theme of ['Light', 'Dark']) {
+for (const theme of ['Light', 'Dark']) {
+  test(`a calculator page has no serious or critical accessibility violations, ${theme.toLowerCase()} theme`, async ({ page }) => {
+    test.slow(); // axe checks every node, the worked steps' KaTeX included
+    await page.goto('/calculators/flow-at-test-pressure');
+    await expect(page.getByRole('note').filter({ hasText: 'Safety' })).toContainText('local codes');
+    await expect(resultValue(page, 'Flow')).not.toBeEmpty();
+    await expect(page.getByRole('region', { name: 'Worked steps' }).getByRole('math').first()).toBeAttached();
     await page.getByRole('button', { name: /theme/i }).click();
     await page.getByRole('menuitemradio', { name: theme }).click();
     await expect(page.getByRole('menu')).toBeHidden();
     const scan = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze();
     const blocking = scan.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
-    expect(blocking.map((v) => `${theme}: ${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).join(', ')})`)).toEqual([]);
-  }
-});
+    expect(blocking.map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).join(', ')})`)).toEqual([]);
+  });
+}
 
 test('an unknown calculator says so and links back to the list', async ({ page }) => {
   await page.goto('/calculators/no-such-thing');

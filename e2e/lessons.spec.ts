@@ -41,6 +41,7 @@ async function openLesson(page: Page, slug: string, title: string): Promise<void
 }
 
 test('a visitor reads the free lesson, works its calculator, and moves on to the next lesson', async ({ page }) => {
+  test.slow(); // two lessons and a worked calculator
   const errors = watchErrors(page);
   await page.goto('/course');
   await expect(page.getByRole('heading', { level: 1, name: 'The course' })).toBeVisible();
@@ -83,6 +84,7 @@ test('a worked example links to the calculator with its numbers, and the calcula
 });
 
 test('a returning reader is offered the heading they reached', async ({ page }) => {
+  test.slow(); // the lesson is opened twice
   await openLesson(page, 'pressure', pressureLesson);
   const contents = page.getByRole('navigation', { name: 'On this page' });
   await contents.getByRole('link', { name: 'The water-column manometer' }).click();
@@ -115,8 +117,9 @@ test('a lesson prints without the site around it, answers open', async ({ page }
   await expect(page.getByText('About 24.5 psi absolute')).toBeVisible();
 });
 
-test('screenshots of a lesson in light and dark, desktop and tablet', async ({ page }, testInfo) => {
-  for (const [width, height, device] of [[1280, 800, 'desktop'], [800, 1100, 'tablet']] as const) {
+for (const [device, width, height] of [['desktop', 1280, 800], ['tablet', 800, 1100]] as const) {
+  test(`screenshots of a lesson in light and dark, ${device}`, async ({ page }, testInfo) => {
+    test.slow(); // a long lesson page, rendered and captured in two themes
     await page.setViewportSize({ width, height });
     await openLesson(page, 'pressure', pressureLesson);
     for (const theme of ['Light', 'Dark']) {
@@ -126,21 +129,23 @@ test('screenshots of a lesson in light and dark, desktop and tablet', async ({ p
         contentType: 'image/png',
       });
     }
-  }
-});
+  });
+}
 
-test('a lesson page has no serious or critical accessibility violations, in either theme', async ({ page }) => {
-  await openLesson(page, 'pressure', pressureLesson);
-  await expect(resultValue(page.getByRole('region', { name: pressureCalculator }), 'Absolute pressure')).not.toBeEmpty();
-  for (const theme of ['Light', 'Dark']) {
+for (const theme of ['Light', 'Dark']) {
+  test(`a lesson page has no serious or critical accessibility violations, ${theme.toLowerCase()} theme`, async ({ page }) => {
+    test.slow(); // axe checks every node of a long page with KaTeX and a calculator
+    await openLesson(page, 'pressure', pressureLesson);
+    await expect(resultValue(page.getByRole('region', { name: pressureCalculator }), 'Absolute pressure')).not.toBeEmpty();
     await chooseTheme(page, theme);
     const scan = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze();
     const blocking = scan.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
-    expect(blocking.map((v) => `${theme}: ${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).join(', ')})`)).toEqual([]);
-  }
-});
+    expect(blocking.map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).join(', ')})`)).toEqual([]);
+  });
+}
 
 test('the glossary lists a term and leads to the lesson that defines it', async ({ page }) => {
+  test.slow(); // course, glossary, then a lesson
   await page.goto('/course');
   await page.getByRole('link', { name: /glossary/i }).first().click();
   await expect(page.getByRole('heading', { level: 1, name: 'Glossary' })).toBeVisible();
@@ -153,6 +158,7 @@ test('the glossary lists a term and leads to the lesson that defines it', async 
 });
 
 test('KaTeX\'s stylesheet and fonts come with a lesson, not with the home page', async ({ page }) => {
+  test.slow(); // home page to network idle, course, then a lesson
   const loaded: string[] = [];
   page.on('request', (request) => loaded.push(request.url()));
   await page.goto('/', { waitUntil: 'networkidle' });

@@ -19,7 +19,11 @@ export default defineConfig({
   forbidOnly: !!process.env['CI'],
   retries: 0,
   workers: 2,
-  reporter: [['list'], ['html', { outputFolder: './report', open: 'never' }]],
+  // Playwright's default, written out: the slowest-tests table shows each test against it. Whole-page
+  // accessibility scans and multi-page journeys call test.slow() (three times this).
+  timeout: 30_000,
+  // json: per-test durations and limits, for the slowest-tests table `npm test` prints (server/devstack/slowest-tests.mjs).
+  reporter: [['list'], ['html', { outputFolder: './report', open: 'never' }], ['json', { outputFile: '../test-results/playwright.json' }]],
   use: {
     baseURL,
     trace: 'retain-on-failure',

@@ -7,6 +7,8 @@ import { authFile, createUserByCli } from './accounts-cli';
 
 test.describe('as an administrator', () => {
   test.use({ storageState: authFile('admin') });
+  // A new account through the CLI (a Node process and a cost-12 hash), and a whole-page axe scan.
+  test.slow();
 
   test('finds a new apprentice, makes them an instructor, and the audit log shows the change', async ({ page }) => {
     const apprentice = createUserByCli('apprentice');
@@ -44,6 +46,7 @@ test.describe('as an administrator', () => {
 
 test.describe('as an instructor', () => {
   test.use({ storageState: authFile('instructor') });
+  test.slow(); // a new account through the CLI, then a cohort made, filled and emptied
 
   test('creates a cohort, adds an apprentice by e-mail, sees them listed and removes them', async ({ page }) => {
     const apprentice = createUserByCli('apprentice');

@@ -45,6 +45,7 @@ test.describe('a first visit from the United Kingdom', () => {
 });
 
 test('a signed-in apprentice’s switch to US units follows them to a fresh browser', async ({ browser }) => {
+  test.slow(); // a new account through the CLI, then two browsers, each signing in
   const apprentice = createUserByCli('apprentice');
 
   const first = await browser.newContext({ locale: 'en-GB' });

@@ -1,14 +1,19 @@
 // The embedded PostgreSQL cluster: Debian's server binaries, a data folder inside the checkout,
 // listening on 127.0.0.1 only, run as an unprivileged OS user (PostgreSQL refuses to run as root).
-// Also a small CLI for tests that need a throwaway cluster of their own:
-//   node server/devstack/postgres.mjs init|start|stop|status|url --data DIR --port N
+// When another cluster (say another checkout's) holds the port, it starts on the next free one; once
+// running, its port is read back from `postmaster.pid`, so nothing has to remember it.
+// Also a small CLI, for tests that need a throwaway cluster of their own and for running tests by hand:
+//   node server/devstack/postgres.mjs init|start|stop|status|url|destroy --data DIR [--port N]
 import { randomBytes, createHash } from 'node:crypto';
 import { chmodSync, chownSync, existsSync, mkdirSync, readdirSync, readFileSync, rmSync, symlinkSync, writeFileSync, lstatSync, realpathSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 
+import { freePort, isPortFree } from './ports.mjs';
 import { aptInstall, capture, isRoot, log, run } from './process.mjs';
 
+/** The port a cluster asks for first (`FLOWLORE_PG_PORT` overrides it for `npm start`/`npm test`). */
+export const DEFAULT_PG_PORT = 54329;
 const SUPERUSER = 'flowlore';
 const OS_USERS = ['postgres', 'flowlore-db'];
 
@@ -91,7 +96,8 @@ export async function initCluster(c) {
     rmSync(pwfile, { force: true });
   }
   const socketDir = socketDirFor(c, user);
-  // Only loopback, our own port, our own socket folder: nothing else on the machine is touched.
+  // Only loopback, our own socket folder: nothing else on the machine is touched. The port here is only
+  // a default: startCluster always passes the one it chose with -p, which wins over this file.
   writeFileSync(join(c.pgdata, 'postgresql.auto.conf'), [
     `listen_addresses = '127.0.0.1'`,
     `port = ${c.port}`,
@@ -142,24 +148,53 @@ export async function isRunning(c) {
   return capture(cmd, args).status === 0;
 }
 
-/** Starts the cluster unless it already runs; resolves true when this call started it. */
+/** The port the running cluster listens on: line 4 of `postmaster.pid`; undefined when it is not running. */
+export async function runningPort(c) {
+  return (await isRunning(c)) ? pidFilePort(c) : undefined;
+}
+
+function pidFilePort(c) {
+  const file = join(c.pgdata, 'postmaster.pid');
+  const port = Number(existsSync(file) ? readFileSync(file, 'utf8').split('\n')[3] : NaN);
+  if (!Number.isInteger(port) || port <= 0) throw new Error(`PostgreSQL of ${c.dir} runs, but ${file} names no port`);
+  return port;
+}
+
+/**
+ * Starts the cluster unless it already runs. It asks for `c.port` and takes the next free port when
+ * something else holds that one (retrying if another start grabs it first). Resolves to `started`
+ * (true when this call started it) and `port`, where it listens, even when it ran already.
+ */
 export async function startCluster(c) {
   await initCluster(c);
-  if (await isRunning(c)) return false;
+  if (await isRunning(c)) {
+    const port = pidFilePort(c);
+    log(`PostgreSQL of this data folder already runs on 127.0.0.1:${port}: using it`);
+    return { started: false, port };
+  }
   const bin = await ensureServerBinaries();
   const user = await serverUser();
-  const socketDir = socketDirFor(c, user);
-  log(`starting PostgreSQL on 127.0.0.1:${c.port}`);
-  const [cmd, args] = asUser(user, join(bin, 'pg_ctl'), [
-    '-D', c.pgdata, '-l', c.logFile, '-w', '-t', '60', '-o', `-p ${c.port} -k ${socketDir}`, 'start',
-  ]);
-  try {
-    await run(cmd, args, { stdio: ['ignore', 'ignore', 'inherit'] });
-  } catch (error) {
-    const tail = existsSync(c.logFile) ? readFileSync(c.logFile, 'utf8').split('\n').slice(-15).join('\n') : '';
-    throw new Error(`PostgreSQL did not start on port ${c.port} (is the port taken? set FLOWLORE_PG_PORT).\n${tail}`, { cause: error });
+  let port = await freePort(c.port, { holder: "another checkout's PostgreSQL" });
+  for (let attempt = 1; ; attempt++) {
+    const socketDir = socketDirFor({ ...c, port }, user);
+    log(`starting PostgreSQL on 127.0.0.1:${port}`);
+    const [cmd, args] = asUser(user, join(bin, 'pg_ctl'), [
+      '-D', c.pgdata, '-l', c.logFile, '-w', '-t', '60', '-o', `-p ${port} -k ${socketDir}`, 'start',
+    ]);
+    try {
+      await run(cmd, args, { stdio: ['ignore', 'ignore', 'inherit'] });
+      return { started: true, port };
+    } catch (error) {
+      // Lost a race for the port (two stacks starting at once): try the next free one.
+      if (attempt < 3 && !(await isPortFree(port))) {
+        log(`port ${port} was taken while PostgreSQL started; trying the next free one`);
+        port = await freePort(port + 1);
+        continue;
+      }
+      const tail = existsSync(c.logFile) ? readFileSync(c.logFile, 'utf8').split('\n').slice(-15).join('\n') : '';
+      throw new Error(`PostgreSQL did not start on port ${port}.\n${tail}`, { cause: error });
+    }
   }
-  return true;
 }
 
 export async function stopCluster(c) {
@@ -191,20 +226,36 @@ export async function ensureDatabase(c, database, { recreate = false } = {}) {
   }
 }
 
-// CLI for tests: prints the connection URL of the (started) cluster for `url`.
+// CLI. `start` reports the port it took; `url` and `status` read the running cluster's port, so
+// `--port` is needed by neither (for `start` and `init` it is the port to ask for first).
 if (import.meta.url === `file://${process.argv[1]}`) {
   const [command] = process.argv.slice(2);
   const option = (name) => {
     const at = process.argv.indexOf(`--${name}`);
     return at === -1 ? undefined : process.argv[at + 1];
   };
-  const c = cluster(option('data'), Number(option('port')));
+  if (!['init', 'start', 'stop', 'status', 'url', 'destroy'].includes(command) || !option('data')) {
+    process.stderr.write('usage: postgres.mjs init|start|stop|status|url|destroy --data DIR [--port N] [--database NAME]\n');
+    process.exit(2);
+  }
+  const c = cluster(option('data'), Number(option('port') ?? process.env.FLOWLORE_PG_PORT ?? DEFAULT_PG_PORT));
+  const urlPort = async () => {
+    const port = (await runningPort(c)) ?? (option('port') ? Number(option('port')) : undefined);
+    if (port === undefined) throw new Error(`PostgreSQL of ${c.dir} is not running: start it first (or give --port)`);
+    return port;
+  };
   const actions = {
     init: () => initCluster(c),
-    start: () => startCluster(c),
+    start: async () => {
+      const { port } = await startCluster(c);
+      process.stdout.write(`running on 127.0.0.1:${port}\n`);
+    },
     stop: () => stopCluster(c),
-    status: async () => process.stdout.write(`${(await isRunning(c)) ? 'running' : 'stopped'}\n`),
-    url: async () => process.stdout.write(`${databaseUrl(c, option('database') ?? 'postgres')}\n`),
+    status: async () => {
+      const port = await runningPort(c);
+      process.stdout.write(port === undefined ? 'stopped\n' : `running on 127.0.0.1:${port}\n`);
+    },
+    url: async () => process.stdout.write(`${databaseUrl({ ...c, port: await urlPort() }, option('database') ?? 'postgres')}\n`),
     destroy: async () => {
       await stopCluster(c);
       const real = existsSync(c.pgdata) ? realpathSync(c.pgdata) : c.pgdata;
@@ -212,10 +263,5 @@ if (import.meta.url === `file://${process.argv[1]}`) {
       rmSync(c.dir, { recursive: true, force: true });
     },
   };
-  const action = actions[command];
-  if (!action) {
-    process.stderr.write('usage: postgres.mjs init|start|stop|status|url|destroy --data DIR --port N [--database NAME]\n');
-    process.exit(2);
-  }
-  action().catch((error) => { process.stderr.write(`${error.message}\n`); process.exit(1); });
+  actions[command]().catch((error) => { process.stderr.write(`${error.message}\n`); process.exit(1); });
 }

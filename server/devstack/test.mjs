@@ -1,11 +1,16 @@
 // `npm test`: the same set-up as `npm start` into a separate, freshly made test database, then
-// every test: jest (shared + server, against real PostgreSQL) and Playwright (Debian Chromium).
-import { existsSync } from 'node:fs';
+// every test: jest (shared + server, against real PostgreSQL) and Playwright (Debian Chromium), and
+// at the end the ten slowest tests of both. Every port it needs falls back to the next free one, so a
+// second checkout's run (or `npm start`) on the same machine never stops it.
+import { existsSync, mkdirSync, rmSync } from 'node:fs';
+import { relative } from 'node:path';
 
 import { startMailCatcher } from './mail-catcher.mjs';
+import { freePort } from './ports.mjs';
 import { aptInstall, log, run } from './process.mjs';
 import { ensureNpmDependencies } from './npm-deps.mjs';
 import { root } from './paths.mjs';
+import { jestReport, playwrightReport, printSlowestTests, resultsDir } from './slowest-tests.mjs';
 
 const CHROMIUM = '/usr/bin/chromium';
 
@@ -23,6 +28,9 @@ async function test() {
     await db.stop();
     throw error;
   });
+  // This run's reports only: a stale one would put old timings in the slowest-tests table.
+  mkdirSync(resultsDir, { recursive: true });
+  for (const file of [jestReport, playwrightReport]) rmSync(file, { force: true });
   const env = {
     ...process.env,
     SMTP_HOST: mail.smtpHost,
@@ -48,13 +56,17 @@ async function test() {
     await step('building the app', 'npm', ['run', '--silent', 'build']);
     if (failures.length === 0) {
       await step('type-checking the tests too', 'npm', ['run', '--silent', 'typecheck']);
-      await step('unit and API tests (jest)', 'npx', ['jest', '--ci']);
+      await step('unit and API tests (jest)', 'npx', ['jest', '--ci', '--json', `--outputFile=${relative(root, jestReport)}`]);
       await step('migrating the test database', 'node', ['dist/api/server/cli.js', 'migrate']);
+      // The app server the browser tests start (e2e/playwright.config.ts reads E2E_PORT), chosen just
+      // before it starts so that a port taken meanwhile is not picked.
+      env.E2E_PORT = String(await freePort(Number(process.env.E2E_PORT ?? 4310), { holder: "another test run's app server" }));
       await step('browser tests (Playwright)', 'npx', ['playwright', 'test', '-c', 'e2e/playwright.config.ts']);
     }
   } finally {
     await mail.stop();
     await db.stop();
+    printSlowestTests();
   }
   if (failures.length) {
     process.stderr.write(`\n[flowlore] npm test FAILED:\n${failures.map((f) => `  - ${f}`).join('\n')}\n`);
