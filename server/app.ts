@@ -1,6 +1,4 @@
-import { existsSync } from 'node:fs';
-import { join } from 'node:path';
-
+import compression from 'compression';
 import express, { type Express, type RequestHandler } from 'express';
 import helmet from 'helmet';
 import type { Logger } from 'pino';
@@ -22,6 +20,7 @@ import { calculatorsRouter } from './calculators/calculators.router';
 import { cohortsRouter } from './cohorts/cohorts.router';
 import { CohortsService } from './cohorts/cohorts.service';
 import { healthRouter } from './health/health.router';
+import { clientApp } from './http/client-app';
 import { apiNotFound, problemHandler } from './http/error-handler';
 import { requestLog } from './http/request-log';
 import { LessonStore } from './lessons/lesson-store';
@@ -56,8 +55,13 @@ export function createApp({
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', config.trustProxyHops);
-  app.use(securityHeaders(config));
   app.use(requestLog(logger));
+  // Answers over 1 KB go out compressed (Brotli when the browser takes it). Static files come
+  // compressed from the build and lessons from memory (both set Content-Encoding, so this skips them).
+  app.use(compression({ threshold: 1024 }));
+  const client = clientApp(config.clientDir, { serviceWorkerOff: config.serviceWorkerOff });
+  app.use(client.assets);
+  app.use(securityHeaders(config));
 
   const api = express.Router();
   api.use(express.json({ limit: '100kb' }));
@@ -95,7 +99,7 @@ export function createApp({
   api.use(apiNotFound);
   app.use('/api', api);
 
-  app.use(clientApp(config.clientDir));
+  app.use(client.pages);
   app.use(problemHandler(logger));
   return app;
 }
@@ -122,26 +126,4 @@ function securityHeaders(config: Config): RequestHandler {
     },
     strictTransportSecurity: config.env === 'production',
   });
-}
-
-/** Serves the built Angular app: hashed files cached for a year, every other path gets index.html. */
-function clientApp(clientDir: string): RequestHandler {
-  const indexFile = join(clientDir, 'index.html');
-  const files = express.static(clientDir, {
-    index: false,
-    setHeaders: (res, path) => {
-      const hashed = /-[A-Z0-9]{8}\.(js|css|woff2?|ttf)$/.test(path) || /\/media\//.test(path);
-      res.setHeader('Cache-Control', hashed ? 'public, max-age=31536000, immutable' : 'no-cache');
-    },
-  });
-  return (req, res, next) => {
-    files(req, res, () => {
-      if ((req.method !== 'GET' && req.method !== 'HEAD') || !req.accepts('html') || !existsSync(indexFile)) {
-        next();
-        return;
-      }
-      res.setHeader('Cache-Control', 'no-cache');
-      res.sendFile(indexFile);
-    });
-  };
 }

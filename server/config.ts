@@ -13,6 +13,8 @@ export interface Config {
   readonly logLevel: string;
   /** The built Angular app, served from the same process as the API. */
   readonly clientDir: string;
+  /** Serve the service worker's kill switch in place of the worker (README, "Turning the service worker off"). */
+  readonly serviceWorkerOff: boolean;
   /** The lesson Markdown files (content/lessons), rendered at start-up. */
   readonly contentDir: string;
   /** Seconds to let in-flight requests finish on shutdown before closing them. */
@@ -53,6 +55,7 @@ const schema = z.object({
   TRUST_PROXY_HOPS: z.coerce.number().int().min(0).default(0),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   CLIENT_DIR: z.string().min(1).default('dist/client/browser'),
+  SERVICE_WORKER_OFF: flag.default(false),
   CONTENT_DIR: z.string().min(1).default('content/lessons'),
   SHUTDOWN_GRACE_SECONDS: z.coerce.number().positive().default(10),
   SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters').optional(),
@@ -91,6 +94,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     trustProxyHops: value.TRUST_PROXY_HOPS,
     logLevel: value.LOG_LEVEL,
     clientDir: resolve(value.CLIENT_DIR),
+    serviceWorkerOff: value.SERVICE_WORKER_OFF,
     contentDir: resolve(value.CONTENT_DIR),
     shutdownGraceSeconds: value.SHUTDOWN_GRACE_SECONDS,
     sessionSecret: value.SESSION_SECRET ?? DEV_SESSION_SECRET,

@@ -1,17 +1,11 @@
-import { createHash } from 'node:crypto';
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 
 import { describeCalculator } from '../../shared/airflow';
 import type { GlossaryEntry, LessonOutline, LessonPage } from '../../shared/api/lessons';
+import { cacheJson, type CachedBody } from '../http/cached-body';
 import { linksIn } from './sanitize';
 import { renderLesson, type RenderedLesson } from './render-lesson';
-
-/** A response body serialised once, with its strong ETag. */
-export interface CachedBody {
-  readonly json: string;
-  readonly etag: string;
-}
 
 export interface LessonLibrary {
   readonly lessons: readonly RenderedLesson[];
@@ -20,11 +14,6 @@ export interface LessonLibrary {
   readonly pages: ReadonlyMap<string, CachedBody>;
   /** Files that failed to render (the content tests require this to be empty). */
   readonly errors: readonly string[];
-}
-
-function cached(value: unknown): CachedBody {
-  const json = JSON.stringify(value);
-  return { json, etag: `"${createHash('sha256').update(json).digest('base64url').slice(0, 27)}"` };
 }
 
 function outlineOf(lesson: RenderedLesson): LessonOutline {
@@ -58,12 +47,12 @@ export function loadLessonLibrary(dir: string): LessonLibrary {
       previous: link(lessons[i - 1]),
       next: link(lessons[i + 1]),
     };
-    pages.set(lesson.meta.slug, cached(page));
+    pages.set(lesson.meta.slug, cacheJson(page));
   });
   const glossary: GlossaryEntry[] = lessons
     .flatMap((lesson) => lesson.meta.glossary.map((entry) => ({ ...entry, lesson: { slug: lesson.meta.slug, title: lesson.meta.title } })))
     .sort((a, b) => a.term.localeCompare(b.term, 'en'));
-  return { lessons, outline: cached(lessons.map(outlineOf)), glossary: cached(glossary), pages, errors };
+  return { lessons, outline: cacheJson(lessons.map(outlineOf)), glossary: cacheJson(glossary), pages, errors };
 }
 
 const SITE_PAGES = new Set(['/', '/course', '/calculators', '/glossary']);

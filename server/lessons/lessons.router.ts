@@ -1,19 +1,10 @@
-import { Router, type Response } from 'express';
+import { Router } from 'express';
 
+import { sendCachedJson as sendCached } from '../http/cached-body';
 import { HttpProblem } from '../http/problem';
-import type { CachedBody, LessonLibrary } from './lesson-library';
+import type { LessonLibrary } from './lesson-library';
 
-/** Sends a pre-serialised body with its ETag; a matching If-None-Match gets 304 with no body. */
-function sendCached(res: Response, body: CachedBody): void {
-  res.set({ ETag: body.etag, 'Cache-Control': 'no-cache' });
-  if (res.req.fresh) {
-    res.status(304).end();
-    return;
-  }
-  res.type('application/json').send(body.json);
-}
-
-/** The course: outline, lesson pages and glossary, rendered once and served from memory. */
+/** The course: outline, lesson pages and glossary, rendered and compressed once, served from memory. */
 export function lessonsRouter(library: () => LessonLibrary): Router {
   const router = Router();
   router.get('/lessons', (_req, res) => sendCached(res, library().outline));

@@ -1,0 +1,69 @@
+// The steps after `ng build` (run by `npm run build:client`), on dist/client/browser:
+//  1. index.html preloads the font the first paint sets its text in, so the text does not wait for
+//     the stylesheet to be read before the font is asked for;
+//  2. the service worker's manifest (ngsw.json) is made again, since step 1 changed index.html and
+//     the worker checks every file against the hash it lists;
+//  3. every compressible file gets Brotli and gzip copies beside it (name.br, name.gz), made once
+//     here at the highest settings, so the server never compresses a static file per request
+//     (server/http/client-app.ts serves the best copy the browser accepts).
+import { readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
+import { join, relative } from 'node:path';
+import { brotliCompressSync, constants as zlib, gzipSync } from 'node:zlib';
+
+import { log, run } from './process.mjs';
+import { root } from './paths.mjs';
+
+const browserDir = join(root, 'dist', 'client', 'browser');
+/** The face of the home page's lead paragraph and body text (src/styles/_fonts.scss). */
+const FIRST_PAINT_FONT = /^merriweather-latin-400-normal-[A-Z0-9]{8}\.woff2$/;
+/** Text formats worth compressing; woff2, png and the like are compressed already. */
+const COMPRESSIBLE = /\.(js|mjs|css|html|svg|json|webmanifest|txt|ttf|woff|xml|map)$/;
+const MIN_BYTES = 1024;
+
+function preloadFirstPaintFont() {
+  const font = readdirSync(join(browserDir, 'media')).find((name) => FIRST_PAINT_FONT.test(name));
+  if (!font) throw new Error('client build: the first-paint font (Merriweather 400, Latin) is not in dist/client/browser/media');
+  const indexFile = join(browserDir, 'index.html');
+  const html = readFileSync(indexFile, 'utf8').replace(/\s*<link rel="preload" as="font"[^>]*>/g, '');
+  const link = `<link rel="preload" as="font" type="font/woff2" href="media/${font}" crossorigin>`;
+  writeFileSync(indexFile, html.replace('</title>', `</title>\n    ${link}`));
+}
+
+async function rebuildWorkerManifest() {
+  const config = join(root, 'src', 'ngsw-config.json');
+  const cli = join(root, 'node_modules', '@angular', 'service-worker', 'ngsw-config.js');
+  await run(process.execPath, [cli, relative(root, browserDir), relative(root, config), '/'], { cwd: root });
+}
+
+function* filesUnder(dir) {
+  for (const entry of readdirSync(dir, { withFileTypes: true })) {
+    const path = join(dir, entry.name);
+    if (entry.isDirectory()) yield* filesUnder(path);
+    else yield path;
+  }
+}
+
+function writeCompressedCopies() {
+  let files = 0;
+  let before = 0;
+  let after = 0;
+  for (const path of filesUnder(browserDir)) {
+    if (!COMPRESSIBLE.test(path) || statSync(path).size < MIN_BYTES) continue;
+    const data = readFileSync(path);
+    const br = brotliCompressSync(data, {
+      params: { [zlib.BROTLI_PARAM_QUALITY]: zlib.BROTLI_MAX_QUALITY, [zlib.BROTLI_PARAM_SIZE_HINT]: data.length },
+    });
+    const gz = gzipSync(data, { level: zlib.Z_BEST_COMPRESSION });
+    // A copy that is not smaller is not worth a second representation.
+    if (br.length < data.length) writeFileSync(`${path}.br`, br);
+    if (gz.length < data.length) writeFileSync(`${path}.gz`, gz);
+    files += 1;
+    before += data.length;
+    after += Math.min(br.length, data.length);
+  }
+  log(`compressed copies of ${files} files: ${(before / 1e3).toFixed(0)} kB → ${(after / 1e3).toFixed(0)} kB with Brotli`);
+}
+
+preloadFirstPaintFont();
+await rebuildWorkerManifest();
+writeCompressedCopies();

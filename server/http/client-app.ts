@@ -1,0 +1,79 @@
+import { existsSync } from 'node:fs';
+import type { ServerResponse } from 'node:http';
+import { join } from 'node:path';
+
+import type { RequestHandler } from 'express';
+import expressStaticGzip from 'express-static-gzip';
+
+/** Build output names carry an 8-character content hash (`main-AB12CD34.js`); media files live in `media/`. */
+const HASHED_FILE = /-[A-Z0-9]{8}\.(js|css|woff2?|ttf|svg|png)(\.br|\.gz)?$/;
+
+export interface ClientAppOptions {
+  /**
+   * Serve the service worker's kill switch (`safety-worker.js`) in place of `ngsw-worker.js`: every
+   * browser that checks for an update unregisters the worker and drops its caches (README, "Turning
+   * the service worker off").
+   */
+  readonly serviceWorkerOff?: boolean;
+}
+
+/**
+ * Serves the built Angular app. The build writes Brotli and gzip copies beside every compressible
+ * file (`server/devstack/client-build.mjs`); express-static-gzip sends the best copy the request's
+ * Accept-Encoding allows, with `Vary: Accept-Encoding` and the original file's Content-Type. Hashed
+ * files are cached for a year; everything else, index.html above all, is revalidated on every use
+ * (`no-cache`). Every other GET for a page gets index.html, so the client's router takes over.
+ */
+export function clientApp(clientDir: string, options: ClientAppOptions = {}): ClientHandlers {
+  const indexFile = join(clientDir, 'index.html');
+  const files = expressStaticGzip(clientDir, {
+    enableBrotli: true,
+    orderPreference: ['br', 'gzip'],
+    index: false,
+    serveStatic: {
+      index: false,
+      setHeaders: (res: ServerResponse, path: string) => {
+        const hashed = HASHED_FILE.test(path) || /[/\\]media[/\\]/.test(path);
+        res.setHeader('Cache-Control', hashed ? 'public, max-age=31536000, immutable' : 'no-cache');
+        // Identity answers vary too: a shared cache must not hand them to a client that takes Brotli.
+        res.setHeader('Vary', 'Accept-Encoding');
+      },
+    },
+  });
+  const assets: RequestHandler = (req, res, next) => {
+    if (!isHashedAsset(req.path)) {
+      next();
+      return;
+    }
+    // A script, style sheet, font or image is not a document: the page-level security headers
+    // (CSP, framing, referrer…) mean nothing on it, and on 30 files a page they cost ~15 KB.
+    res.setHeader('X-Content-Type-Options', 'nosniff');
+    res.setHeader('Cross-Origin-Resource-Policy', 'same-origin');
+    files(req, res, next);
+  };
+  const pages: RequestHandler = (req, res, next) => {
+    if (options.serviceWorkerOff && req.path === '/ngsw-worker.js') req.url = '/safety-worker.js';
+    files(req, res, () => {
+      // A missing file (an old chunk, a typo) is a 404, never index.html served as script.
+      const isPage = !/\.[A-Za-z0-9]+$/.test(req.path);
+      if ((req.method !== 'GET' && req.method !== 'HEAD') || !isPage || !req.accepts('html') || !existsSync(indexFile)) {
+        next();
+        return;
+      }
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(indexFile);
+    });
+  };
+  return { assets, pages };
+}
+
+export interface ClientHandlers {
+  /** Hashed files (scripts, styles, fonts, media): mount ahead of the page security headers. */
+  readonly assets: RequestHandler;
+  /** index.html for every page path, the worker, the manifest, icons: mount after them. */
+  readonly pages: RequestHandler;
+}
+
+function isHashedAsset(path: string): boolean {
+  return HASHED_FILE.test(path) || path.startsWith('/media/');
+}
