@@ -39,23 +39,28 @@ export const routes: Routes = [
     loadComponent: () => import('./calculators/calculator-page').then((m) => m.CalculatorPage),
   },
   { path: 'sign-in', pathMatch: 'full', redirectTo: '/account/sign-in' },
+  // `needsConnection`: these pages work only with the server; offline, the shell says so instead.
   {
     path: 'account',
+    data: { needsConnection: true },
     loadChildren: () => import('./account/account.routes').then((m) => m.accountRoutes),
   },
   {
     path: 'admin',
+    data: { needsConnection: true },
     canActivate: [roleGuard('admin')],
     loadChildren: () => import('./admin/admin.routes').then((m) => m.adminRoutes),
   },
   {
     path: 'cohorts',
+    data: { needsConnection: true },
     canActivate: [roleGuard('instructor')],
     loadChildren: () => import('./cohorts/cohorts.routes').then((m) => m.cohortsRoutes),
   },
   {
     path: 'shop',
     title: 'My shop',
+    data: { needsConnection: true },
     canActivate: [roleGuard('shop_owner')],
     loadComponent: () => import('./shop/shop-page').then((m) => m.ShopPage),
   },

@@ -17,6 +17,10 @@ const icons: Readonly<Record<string, string>> = {
   'theme-system':
     `<svg viewBox="0 0 24 24" ${stroke}><circle cx="12" cy="12" r="8"/>` +
     '<path d="M12 4a8 8 0 0 1 0 16z" fill="currentColor"/></svg>',
+  // Signal arcs struck through: the browser reports no network.
+  offline:
+    `<svg viewBox="0 0 24 24" ${stroke}><path d="M2.5 9a14 14 0 0 1 19 0M5.8 12.5a9.5 9.5 0 0 1 12.4 0M9 16a5 5 0 0 1 6 0"/>` +
+    '<path d="M12 19.5v.01M3.5 3.5l17 17"/></svg>',
   caution:
     `<svg viewBox="0 0 24 24" ${stroke}><path d="M12 3.5L2.5 20h19z"/><path d="M12 10v4.5M12 17.5v.01"/></svg>`,
 };

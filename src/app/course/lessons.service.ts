@@ -24,6 +24,14 @@ export class LessonsService {
     return httpResource(() => '/api/glossary', { parse: parseGlossary });
   }
 
+  /** Reads the outline and every free lesson, so the service worker keeps them for offline use. */
+  async cacheFreeLessons(): Promise<void> {
+    const outline = parseOutline(await firstValueFrom(this.http.get<unknown>('/api/lessons')));
+    for (const lesson of outline.filter((l) => l.free)) {
+      await firstValueFrom(this.http.get<unknown>(`/api/lessons/${encodeURIComponent(lesson.slug)}`));
+    }
+  }
+
   /**
    * A lesson's title for the page title, from the outline (fetched once per visit): null when the
    * course has no such lesson, undefined when the outline could not be read.

@@ -5,11 +5,14 @@ import { MatButton, MatIconButton } from '@angular/material/button';
 import { MatIcon } from '@angular/material/icon';
 import { MatSidenav, MatSidenavContainer, MatSidenavContent } from '@angular/material/sidenav';
 import { MatToolbar } from '@angular/material/toolbar';
-import { Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
-import { map } from 'rxjs';
+import { type ActivatedRouteSnapshot, NavigationEnd, Router, RouterLink, RouterLinkActive, RouterOutlet } from '@angular/router';
+import { filter, map } from 'rxjs';
 
 import type { Role } from '../../../shared/api/accounts';
 import { AuthService } from '../core/auth.service';
+import { ConnectivityService } from '../core/connectivity.service';
+
+import { NeedsConnection } from './needs-connection';
 
 import { SiteFooter } from './site-footer';
 import { ThemeMenu } from './theme-menu';
@@ -42,6 +45,7 @@ const ROLE_LINKS: Readonly<Partial<Record<Role, readonly NavLink[]>>> = {
     MatSidenavContainer,
     MatSidenavContent,
     MatToolbar,
+    NeedsConnection,
     RouterLink,
     RouterLinkActive,
     RouterOutlet,
@@ -57,6 +61,19 @@ export class AppShell {
   private readonly breakpoints = inject(BreakpointObserver);
   private readonly router = inject(Router);
   protected readonly auth = inject(AuthService);
+  protected readonly online = inject(ConnectivityService).online;
+
+  /** Whether the page on screen works only with the server (its route says `needsConnection`). */
+  private readonly pageNeedsConnection = toSignal(
+    this.router.events.pipe(
+      filter((event) => event instanceof NavigationEnd),
+      map(() => needsConnection(this.router.routerState.snapshot.root)),
+    ),
+    { initialValue: false },
+  );
+
+  /** Offline on such a page: say so instead of showing a form that cannot be sent. */
+  protected readonly blockedOffline = computed(() => !this.online() && this.pageNeedsConnection());
 
   private readonly everyone: readonly NavLink[] = [
     { path: '/course', label: 'Course' },
@@ -89,4 +106,8 @@ export class AppShell {
     main.focus();
     main.scrollIntoView();
   }
+}
+
+function needsConnection(route: ActivatedRouteSnapshot): boolean {
+  return route.data['needsConnection'] === true || route.children.some(needsConnection);
 }
