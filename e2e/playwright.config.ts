@@ -28,6 +28,10 @@ export default defineConfig({
     baseURL,
     trace: 'retain-on-failure',
     screenshot: 'only-on-failure',
+    // The production build registers a service worker that copies the whole app for offline use;
+    // in every test that would be ~70 extra downloads and a cache between the test and the server.
+    // The offline journeys (e2e/offline.spec.ts) allow it.
+    serviceWorkers: 'block',
     launchOptions: {
       executablePath: '/usr/bin/chromium',
       // Keep the browser off the network: this machine reaches nothing but loopback.

@@ -124,16 +124,22 @@ async function measureOfflineCopy(browser, url) {
     return true;
   });
   if (hasWorker) {
-    // The worker fetches its prefetch groups while installing; wait until it stops fetching.
-    let last = -1;
-    for (let i = 0; i < 60 && last !== requests; i++) {
-      last = requests;
-      await sleep(1000);
-    }
+    // The worker copies the app from its idle-time task queue (~5 s after the last request, away
+    // from localhost); its status page says when that queue has run and is empty.
+    for (let i = 0; i < 120 && !(await copied(page)); i++) await sleep(500);
   }
   await Promise.all(pending);
   await context.close();
   return hasWorker ? { bytes, requests } : undefined;
+}
+
+async function copied(page) {
+  return page.evaluate(async () => {
+    if (!navigator.serviceWorker.controller) return false;
+    const state = await (await fetch('/ngsw/state')).text();
+    const queue = state.split('Task queue:')[1]?.split('Debug log:')[0]?.trim();
+    return /Latest manifest hash: [0-9a-f]{6,}/.test(state) && !/Last update run: never/.test(state) && queue === '';
+  });
 }
 
 function typeOf(request) {

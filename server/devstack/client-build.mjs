@@ -26,7 +26,10 @@ function preloadFirstPaintFont() {
   const indexFile = join(browserDir, 'index.html');
   const html = readFileSync(indexFile, 'utf8').replace(/\s*<link rel="preload" as="font"[^>]*>/g, '');
   const link = `<link rel="preload" as="font" type="font/woff2" href="media/${font}" crossorigin>`;
-  writeFileSync(indexFile, html.replace('</title>', `</title>\n    ${link}`));
+  // After <base href>: a relative address resolves against it only from there on.
+  const base = /<base href="[^"]*"\s*\/?>/.exec(html);
+  if (!base) throw new Error('client build: index.html has no <base href>');
+  writeFileSync(indexFile, html.replace(base[0], `${base[0]}\n    ${link}`));
 }
 
 async function rebuildWorkerManifest() {

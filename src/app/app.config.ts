@@ -52,8 +52,9 @@ export const appConfig: ApplicationConfig = {
       withXsrfConfiguration({ cookieName: XSRF_COOKIE, headerName: XSRF_HEADER }),
       withInterceptors([apiErrorsInterceptor, csrfInterceptor]),
     ),
-    // Who is signed in is known before the first page renders, so guards and the top bar agree.
-    provideAppInitializer(() => inject(AuthService).load()),
+    // Who is signed in is asked at start-up without holding the first page back; the guards wait
+    // for the answer, and the top bar shows the account control once it is in.
+    provideAppInitializer(() => inject(AuthService).start()),
     { provide: TitleStrategy, useClass: PageTitleStrategy },
     provideIcons(),
     // A heading reached by its #fragment (lesson contents, glossary letters) lands a little below

@@ -3,14 +3,18 @@ import { Routes } from '@angular/router';
 import { calculatorTitle } from './calculators/calculator-title';
 import { roleGuard } from './core/auth-guards';
 import { lessonTitle } from './course/lesson-title';
+import { HomePage } from './home/home-page';
 
-// Every page is its own lazy chunk; the shell (top bar, navigation, footer) is all that loads up front.
+// Every page but the home page is its own lazy chunk; the shell (top bar, navigation, footer) and
+// the home page are all that load up front.
 export const routes: Routes = [
   {
     path: '',
     pathMatch: 'full',
     title: 'Engine-air physics for the workshop',
-    loadComponent: () => import('./home/home-page').then((m) => m.HomePage),
+    // The one page in the first download: most visits start here, and a lazy chunk would cost the
+    // first paint another round trip.
+    component: HomePage,
   },
   {
     path: 'course',

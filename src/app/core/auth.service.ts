@@ -13,18 +13,38 @@ import { problemDisplay } from './problem';
 export class AuthService {
   private readonly http = inject(HttpClient);
   private readonly current = signal<Account | null>(null);
+  private readonly answered = signal(false);
+  private firstLoad?: Promise<void>;
 
   readonly user = this.current.asReadonly();
+  /** Whether the server has said who this is (false only while the first GET /api/auth/me is out). */
+  readonly known = this.answered.asReadonly();
   readonly role = computed<Role | null>(() => this.current()?.role ?? null);
   readonly signedIn = computed(() => this.current() !== null);
 
-  /** Asks the server who this is; a visitor (or an unreachable API) counts as signed out. */
+  /**
+   * Asks once at start-up, without holding up the first page: public pages render at once, and
+   * the guards of the pages that depend on the answer wait for it (`whenKnown`).
+   */
+  start(): void {
+    this.firstLoad ??= this.load();
+  }
+
+  /** Resolves once the start-up question has been answered. */
+  whenKnown(): Promise<void> {
+    this.start();
+    return this.firstLoad as Promise<void>;
+  }
+
+  /** Asks the server who this is; a visitor (or an unreachable API, offline) counts as signed out. */
   async load(): Promise<void> {
     try {
       const me = await firstValueFrom(this.http.get<MeResponse>('/api/auth/me'));
       this.current.set(me?.user ?? null);
     } catch {
       this.current.set(null);
+    } finally {
+      this.answered.set(true);
     }
   }
 

@@ -20,7 +20,7 @@ import { AuthService } from '../core/auth.service';
         <a mat-menu-item routerLink="/account/profile">Profile</a>
         <button mat-menu-item type="button" (click)="signOut()">Sign out</button>
       </mat-menu>
-    } @else {
+    } @else if (auth.known()) {
       <a matButton="outlined" routerLink="/account/sign-in">Sign in</a>
     }
   `,
