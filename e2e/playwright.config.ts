@@ -22,6 +22,9 @@ export default defineConfig({
   // Playwright's default, written out: the slowest-tests table shows each test against it. Whole-page
   // accessibility scans and multi-page journeys call test.slow() (three times this).
   timeout: 30_000,
+  // An assertion waits up to 10 s (Playwright's default is 5 s): on a busy 2-core CI machine a lazy
+  // page or a lesson's calculators can take longer than 5 s to arrive, which is not a failure.
+  expect: { timeout: 10_000 },
   // json: per-test durations and limits, for the slowest-tests table `npm test` prints (server/devstack/slowest-tests.mjs).
   reporter: [['list'], ['html', { outputFolder: './report', open: 'never' }], ['json', { outputFile: '../test-results/playwright.json' }]],
   use: {

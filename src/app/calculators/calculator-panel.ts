@@ -7,7 +7,6 @@ import { CalculationResults } from './calculation-results';
 import { CalculatorFields } from './calculator-fields';
 import { CalculatorForm } from './calculator-form';
 import { type FormState, calculate, isGiven } from './form-state';
-import { KatexRender } from './katex-render';
 import { unitSuffix } from './unit-labels';
 import { WorkedSteps } from './worked-steps';
 
@@ -27,7 +26,7 @@ let panelsMade = 0;
  */
 @Component({
   selector: 'fl-calculator-panel',
-  imports: [CalculationResults, CalculatorFields, KatexRender, WorkedSteps],
+  imports: [CalculationResults, CalculatorFields, WorkedSteps],
   providers: [{ provide: ErrorStateMatcher, useValue: engineErrorState }],
   templateUrl: './calculator-panel.html',
   styleUrl: './calculator-panel.scss',
@@ -64,11 +63,11 @@ export class CalculatorPanel {
       .flatMap((input) => {
         if (input.kind === 'option') {
           const chosen = input.options?.find((option) => option.value === state.options[input.name]);
-          return chosen ? [{ label: input.label, symbol: '', value: chosen.label, unit: '' }] : [];
+          return chosen ? [{ label: input.label, value: chosen.label, unit: '' }] : [];
         }
         const entry = state.quantities[input.name];
         const text = entry?.text.trim() ?? '';
-        return entry && text ? [{ label: input.label, symbol: input.symbol, value: text, unit: unitSuffix(entry.unit) }] : [];
+        return entry && text ? [{ label: input.label, value: text, unit: unitSuffix(entry.unit) }] : [];
       });
   });
 

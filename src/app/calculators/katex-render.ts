@@ -1,34 +1,7 @@
-import {
-  DOCUMENT,
-  DestroyRef,
-  Directive,
-  ElementRef,
-  Injectable,
-  afterRenderEffect,
-  inject,
-  input,
-} from '@angular/core';
+import { DOCUMENT, DestroyRef, Directive, ElementRef, afterRenderEffect, inject, input } from '@angular/core';
 import katex from 'katex';
 
-/**
- * KaTeX's stylesheet (and, through it, its fonts) is built as the lazy global bundle "katex"
- * (angular.json: styles, inject: false): katex.css beside index.html, fonts under media/. It is
- * linked the first time a formula is shown, so pages without maths never load it.
- */
-@Injectable({ providedIn: 'root' })
-export class KatexStylesheet {
-  private readonly document = inject(DOCUMENT);
-  private linked = false;
-
-  load(): void {
-    if (this.linked) return;
-    this.linked = true;
-    const link = this.document.createElement('link');
-    link.rel = 'stylesheet';
-    link.href = 'katex.css';
-    this.document.head.appendChild(link);
-  }
-}
+import { KatexStylesheet } from './katex-stylesheet';
 
 /**
  * Typesets engine-generated LaTeX into its host element. KaTeX writes the element's content itself
@@ -48,12 +21,14 @@ export class KatexRender {
 
   constructor() {
     inject(KatexStylesheet).load();
+    // Every formula on the page is written first, then all are measured: one layout for the lot,
+    // not one forced per formula.
     afterRenderEffect({
       write: () => {
         // \displaystyle: full-size fractions, while inline mode may still break a long line at = or +.
         katex.render(`\\displaystyle ${this.flKatex()}`, this.host, { throwOnError: false, output: 'htmlAndMathml' });
-        this.updateFocusability();
       },
+      read: () => this.updateFocusability(),
     });
     if (typeof ResizeObserver !== 'undefined') {
       const observer = new ResizeObserver(() => this.updateFocusability());

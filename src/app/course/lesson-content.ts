@@ -20,8 +20,16 @@ import {
 import { Router } from '@angular/router';
 
 import type { LessonPage } from '../../../shared/api/lessons';
-import { LessonCalculator } from './lesson-calculator';
-import { LessonTry } from './lesson-try';
+
+/**
+ * The live parts load with their own code (the engine, forms, KaTeX) when the reader comes within
+ * a screen or so of them, or once the page has been up a few seconds, whichever is first: the text
+ * is readable at once, and a lesson with six calculators does not build all six before it.
+ */
+const NEAR_VIEWPORT = '800px 0px';
+const LOAD_ANYWAY_MS = 3000;
+const loadCalculator = () => import('./lesson-calculator').then((m) => m.LessonCalculator);
+const loadTry = () => import('./lesson-try').then((m) => m.LessonTry);
 
 /**
  * A lesson's text: the server's HTML, with live Angular components mounted at its placeholders —
@@ -51,6 +59,15 @@ export class LessonContent {
   private readonly router = inject(Router);
   private readonly window = inject(DOCUMENT).defaultView;
   private mounted: ComponentRef<unknown>[] = [];
+  /** Placeholders still waiting for their component, and what to mount there. */
+  private waiting = new Map<HTMLElement, () => Promise<void>>();
+  private readonly near =
+    typeof IntersectionObserver === 'undefined'
+      ? undefined
+      : new IntersectionObserver((entries) => {
+          for (const entry of entries) if (entry.isIntersecting) this.mountNow(entry.target as HTMLElement);
+        }, { rootMargin: NEAR_VIEWPORT });
+  private loadAnyway?: ReturnType<typeof setTimeout>;
   /** Check-yourself answers opened for printing, to close again afterwards. */
   private openedForPrint: HTMLDetailsElement[] = [];
 
@@ -71,6 +88,8 @@ export class LessonContent {
     void inject(DOCUMENT).fonts?.ready.then(() => this.updateMathFocus());
     inject(DestroyRef).onDestroy(() => {
       resizes?.disconnect();
+      this.near?.disconnect();
+      clearTimeout(this.loadAnyway);
       this.unmount();
       this.window?.removeEventListener('beforeprint', beforePrint);
       this.window?.removeEventListener('afterprint', afterPrint);
@@ -86,12 +105,15 @@ export class LessonContent {
 
     for (const placeholder of Array.from(this.host.querySelectorAll<HTMLElement>('[data-embed]'))) {
       const embed = lesson.embeds.find((e) => String(e.index) === placeholder.dataset['embed']);
-      if (embed !== undefined) this.mount(LessonCalculator, placeholder, { embed });
+      if (embed !== undefined) this.mountLater(placeholder, async () => this.mount(await loadCalculator(), placeholder, { embed }));
     }
     for (const placeholder of Array.from(this.host.querySelectorAll<HTMLElement>('[data-try]'))) {
       const check = lesson.results.find((r) => String(r.index) === placeholder.dataset['try']);
-      if (check !== undefined) this.mount(LessonTry, placeholder, { check });
+      if (check !== undefined) this.mountLater(placeholder, async () => this.mount(await loadTry(), placeholder, { check }));
     }
+    this.loadAnyway = setTimeout(() => {
+      for (const placeholder of Array.from(this.waiting.keys())) this.mountNow(placeholder);
+    }, LOAD_ANYWAY_MS);
     this.updateMathFocus();
     this.rendered.emit(Array.from(this.host.querySelectorAll<HTMLElement>('h2[id], h3[id]')));
   }
@@ -104,7 +126,27 @@ export class LessonContent {
     }
   }
 
+  private mountLater(placeholder: HTMLElement, mount: () => Promise<void>): void {
+    this.waiting.set(placeholder, mount);
+    if (this.near) this.near.observe(placeholder);
+    else this.mountNow(placeholder);
+  }
+
+  private mountNow(placeholder: HTMLElement): void {
+    const mount = this.waiting.get(placeholder);
+    if (!mount) return;
+    this.waiting.delete(placeholder);
+    this.near?.unobserve(placeholder);
+    const lesson = this.lesson();
+    void mount().then(() => {
+      // The lesson changed while the code was on its way: that placeholder is gone.
+      if (this.lesson() !== lesson) return;
+      this.updateMathFocus();
+    });
+  }
+
   private mount<T>(type: Type<T>, hostElement: HTMLElement, inputs: Readonly<Record<string, unknown>>): void {
+    if (!hostElement.isConnected) return;
     const ref = createComponent(type, {
       environmentInjector: this.environmentInjector,
       elementInjector: this.elementInjector,
@@ -113,6 +155,7 @@ export class LessonContent {
     for (const [name, value] of Object.entries(inputs)) ref.setInput(name, value);
     // Checked with the application's views from now on, as if it were in a template.
     this.appRef.attachView(ref.hostView);
+    ref.changeDetectorRef.markForCheck();
     this.mounted.push(ref);
   }
 
@@ -120,6 +163,9 @@ export class LessonContent {
   private unmount(): void {
     for (const ref of this.mounted) ref.destroy();
     this.mounted = [];
+    this.near?.disconnect();
+    this.waiting.clear();
+    clearTimeout(this.loadAnyway);
   }
 
   /** Links to the course, calculators and glossary stay inside the app (no full page load). */

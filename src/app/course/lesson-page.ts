@@ -19,7 +19,7 @@ import { MatButton, MatIconButton } from '@angular/material/button';
 import { MatIcon } from '@angular/material/icon';
 import { ActivatedRoute, RouterLink } from '@angular/router';
 
-import { KatexStylesheet } from '../calculators/katex-render';
+import { KatexStylesheet } from '../calculators/katex-stylesheet';
 import { LessonContent } from './lesson-content';
 import { LessonsService } from './lessons.service';
 import { ReadingPositionService } from './reading-position.service';
