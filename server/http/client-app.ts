@@ -26,20 +26,10 @@ export interface ClientAppOptions {
  */
 export function clientApp(clientDir: string, options: ClientAppOptions = {}): ClientHandlers {
   const indexFile = join(clientDir, 'index.html');
-  const files = expressStaticGzip(clientDir, {
-    enableBrotli: true,
-    orderPreference: ['br', 'gzip'],
-    index: false,
-    serveStatic: {
-      index: false,
-      setHeaders: (res: ServerResponse, path: string) => {
-        const hashed = HASHED_FILE.test(path) || /[/\\]media[/\\]/.test(path);
-        res.setHeader('Cache-Control', hashed ? 'public, max-age=31536000, immutable' : 'no-cache');
-        // Identity answers vary too: a shared cache must not hand them to a client that takes Brotli.
-        res.setHeader('Vary', 'Accept-Encoding');
-      },
-    },
-  });
+  // Hashed files never change under their name: no validators (ETag, Last-Modified), which a
+  // browser would never use on an immutable file, only bytes on every response.
+  const hashedFiles = staticFiles(clientDir, { immutable: true });
+  const otherFiles = staticFiles(clientDir, { immutable: false });
   const assets: RequestHandler = (req, res, next) => {
     if (!isHashedAsset(req.path)) {
       next();
@@ -49,11 +39,11 @@ export function clientApp(clientDir: string, options: ClientAppOptions = {}): Cl
     // (CSP, framing, referrer…) mean nothing on it, and on 30 files a page they cost ~15 KB.
     res.setHeader('X-Content-Type-Options', 'nosniff');
     res.setHeader('Cross-Origin-Resource-Policy', 'same-origin');
-    files(req, res, next);
+    hashedFiles(req, res, next);
   };
   const pages: RequestHandler = (req, res, next) => {
     if (options.serviceWorkerOff && req.path === '/ngsw-worker.js') req.url = '/safety-worker.js';
-    files(req, res, () => {
+    otherFiles(req, res, () => {
       // A missing file (an old chunk, a typo) is a 404, never index.html served as script.
       const isPage = !/\.[A-Za-z0-9]+$/.test(req.path);
       if ((req.method !== 'GET' && req.method !== 'HEAD') || !isPage || !req.accepts('html') || !existsSync(indexFile)) {
@@ -72,6 +62,25 @@ export interface ClientHandlers {
   readonly assets: RequestHandler;
   /** index.html for every page path, the worker, the manifest, icons: mount after them. */
   readonly pages: RequestHandler;
+}
+
+function staticFiles(clientDir: string, { immutable }: { immutable: boolean }): RequestHandler {
+  return expressStaticGzip(clientDir, {
+    enableBrotli: true,
+    orderPreference: ['br', 'gzip'],
+    index: false,
+    serveStatic: {
+      index: false,
+      etag: !immutable,
+      lastModified: !immutable,
+      acceptRanges: !immutable,
+      setHeaders: (res: ServerResponse) => {
+        res.setHeader('Cache-Control', immutable ? 'public, max-age=31536000, immutable' : 'no-cache');
+        // Identity answers vary too: a shared cache must not hand them to a client that takes Brotli.
+        res.setHeader('Vary', 'Accept-Encoding');
+      },
+    },
+  });
 }
 
 function isHashedAsset(path: string): boolean {
