@@ -1,6 +1,6 @@
 // The steps after `ng build` (run by `npm run build:client`), on dist/client/browser:
-//  1. index.html preloads the font the first paint sets its text in, so the text does not wait for
-//     the stylesheet to be read before the font is asked for;
+//  1. index.html preloads the fonts the first paint sets its text in, so the text does not wait for
+//     the stylesheet to be read before they are asked for;
 //  2. the service worker's manifest (ngsw.json) is made again, since step 1 changed index.html and
 //     the worker checks every file against the hash it lists;
 //  3. every compressible file gets Brotli and gzip copies beside it (name.br, name.gz), made once
@@ -14,18 +14,31 @@ import { log, run } from './process.mjs';
 import { root } from './paths.mjs';
 
 const browserDir = join(root, 'dist', 'client', 'browser');
-/** The face of the home page's lead paragraph and body text (src/styles/_fonts.scss). */
-const FIRST_PAINT_FONT = /^merriweather-latin-400-normal-[A-Z0-9]{8}\.woff2$/;
+/**
+ * The faces every page's first paint sets text in (src/styles/_fonts.scss): Merriweather 400 for
+ * the text, Source Sans 3 400 and 600 for the top bar, headings and controls. Asked for at once,
+ * they are in by the time the app first renders (it waits for its scripts, which are larger), so
+ * no heading reflows when a face arrives late (a layout shift).
+ */
+const FIRST_PAINT_FONTS = [
+  /^merriweather-latin-400-normal-[A-Z0-9]{8}\.woff2$/,
+  /^source-sans-3-latin-600-normal-[A-Z0-9]{8}\.woff2$/,
+  /^source-sans-3-latin-400-normal-[A-Z0-9]{8}\.woff2$/,
+];
 /** Text formats worth compressing; woff2, png and the like are compressed already. */
 const COMPRESSIBLE = /\.(js|mjs|css|html|svg|json|webmanifest|txt|ttf|woff|xml|map)$/;
 const MIN_BYTES = 1024;
 
-function preloadFirstPaintFont() {
-  const font = readdirSync(join(browserDir, 'media')).find((name) => FIRST_PAINT_FONT.test(name));
-  if (!font) throw new Error('client build: the first-paint font (Merriweather 400, Latin) is not in dist/client/browser/media');
+function preloadFirstPaintFonts() {
+  const media = readdirSync(join(browserDir, 'media'));
+  const fonts = FIRST_PAINT_FONTS.map((pattern) => {
+    const font = media.find((name) => pattern.test(name));
+    if (!font) throw new Error(`client build: no first-paint font ${pattern} in dist/client/browser/media`);
+    return font;
+  });
   const indexFile = join(browserDir, 'index.html');
   const html = readFileSync(indexFile, 'utf8').replace(/\s*<link rel="preload" as="font"[^>]*>/g, '');
-  const link = `<link rel="preload" as="font" type="font/woff2" href="media/${font}" crossorigin>`;
+  const link = fonts.map((font) => `<link rel="preload" as="font" type="font/woff2" href="media/${font}" crossorigin>`).join('\n    ');
   // After <base href>: a relative address resolves against it only from there on.
   const base = /<base href="[^"]*"\s*\/?>/.exec(html);
   if (!base) throw new Error('client build: index.html has no <base href>');
@@ -67,6 +80,6 @@ function writeCompressedCopies() {
   log(`compressed copies of ${files} files: ${(before / 1e3).toFixed(0)} kB → ${(after / 1e3).toFixed(0)} kB with Brotli`);
 }
 
-preloadFirstPaintFont();
+preloadFirstPaintFonts();
 await rebuildWorkerManifest();
 writeCompressedCopies();
