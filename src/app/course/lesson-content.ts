@@ -23,11 +23,12 @@ import type { LessonPage } from '../../../shared/api/lessons';
 
 /**
  * The live parts load with their own code (the engine, forms, KaTeX) when the reader comes within
- * a screen or so of them, or once the page has been up a few seconds, whichever is first: the text
- * is readable at once, and a lesson with six calculators does not build all six before it.
+ * a screen or so of them, or once the page has been up 6 s (so find-in-page and a printout have
+ * them), whichever is first: the text is readable and scrollable at once, even on a slow tablet,
+ * and a lesson with six calculators does not build all six before it.
  */
 const NEAR_VIEWPORT = '800px 0px';
-const LOAD_ANYWAY_MS = 3000;
+const LOAD_ANYWAY_MS = 6000;
 const loadCalculator = () => import('./lesson-calculator').then((m) => m.LessonCalculator);
 const loadTry = () => import('./lesson-try').then((m) => m.LessonTry);
 
