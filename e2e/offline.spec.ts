@@ -40,9 +40,12 @@ async function waitForOfflineCopy(page: Page): Promise<void> {
 
 test('after one online visit a calculator opens and computes offline', async ({ page, context }) => {
   test.slow(); // an online visit, the worker copying the app, then the same page offline
+  // Once the worker controls the page, the app reads the free lesson through it (offline-course.ts).
+  const freeLesson = page.waitForResponse((res) => res.url().endsWith('/api/lessons/pressure') && res.ok());
   await page.goto('/calculators/boost');
   await expect(page.getByRole('heading', { level: 1, name: boostTitle })).toBeVisible();
   await waitForOfflineCopy(page);
+  await freeLesson;
 
   await context.setOffline(true);
   await expect(page.getByRole('status').filter({ hasText: 'Offline' })).toBeVisible();

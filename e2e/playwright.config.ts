@@ -60,7 +60,10 @@ export default defineConfig({
     url: `${baseURL}/api/health`,
     reuseExistingServer: false,
     timeout: 60_000,
-    stdout: 'ignore',
+    // Started only when our own server says so: a health answer alone could come from another
+    // checkout's server that took the port between npm test's check and this start.
+    wait: { stdout: /Flowlore is running at/ },
+    stdout: 'pipe',
     stderr: 'pipe',
     // Only what the server needs, passed through from `npm test` (server/devstack/test.mjs), which
     // starts a mail catcher and sets SMTP_HOST/SMTP_PORT for it; the tests read that catcher's mail

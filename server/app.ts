@@ -69,6 +69,9 @@ export function createApp({
   // Ahead of sessions and CSRF on purpose: evaluating a calculator changes nothing (POST only because
   // the inputs are a JSON body), visitors use it, and it needs no identity, so it is CSRF-exempt.
   api.use('/calculators', calculatorsRouter());
+  // The course too: the same for everyone, so no session is read or refreshed and no cookie is set
+  // on an answer a shared cache may keep. (When lessons are gated, they move below and turn private.)
+  api.use(lessonsRouter(lessons.current));
 
   // Everything below knows who is calling. Sessions in PostgreSQL, then the signed-in user, then
   // CSRF checks on every POST/PUT/PATCH/DELETE (Angular's XSRF-TOKEN cookie / X-XSRF-TOKEN header).
@@ -78,7 +81,6 @@ export function createApp({
   const csrf = csrfGuard(config);
   api.use(sessionMiddleware(config, dataSource), sessionTimeouts(now), passport.initialize, passport.session, csrf.protect);
 
-  api.use(lessonsRouter(lessons.current));
   api.use(
     '/auth',
     authRouter({

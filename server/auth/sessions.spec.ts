@@ -77,6 +77,15 @@ describe('sessions', () => {
     expect(res.status).not.toBe(403);
   });
 
+  it('sends no session cookie with the course, which is the same for everyone and may be kept by a shared cache', async () => {
+    const user = await createUser(dataSource);
+    const reader = await signedIn(t.app, user);
+    for (const path of ['/api/lessons', '/api/glossary']) {
+      const res = await reader.get(path);
+      expect({ path, status: res.status, cookie: res.headers['set-cookie'] }).toEqual({ path, status: 200, cookie: undefined });
+    }
+  });
+
   it('rolls a 30-minute idle expiry and ends any session 12 hours after sign-in', async () => {
     const user = await createUser(dataSource);
     const browser = await signedIn(t.app, user);

@@ -31,7 +31,7 @@ export function clientApp(clientDir: string, options: ClientAppOptions = {}): Cl
   const hashedFiles = staticFiles(clientDir, { immutable: true });
   const otherFiles = staticFiles(clientDir, { immutable: false });
   const assets: RequestHandler = (req, res, next) => {
-    if (!isHashedAsset(req.path)) {
+    if (!isRead(req.method) || !isHashedAsset(req.path)) {
       next();
       return;
     }
@@ -42,16 +42,25 @@ export function clientApp(clientDir: string, options: ClientAppOptions = {}): Cl
     hashedFiles(req, res, next);
   };
   const pages: RequestHandler = (req, res, next) => {
+    if (!isRead(req.method)) {
+      next();
+      return;
+    }
     if (options.serviceWorkerOff && req.path === '/ngsw-worker.js') req.url = '/safety-worker.js';
     otherFiles(req, res, () => {
       // A missing file (an old chunk, a typo) is a 404, never index.html served as script.
       const isPage = !/\.[A-Za-z0-9]+$/.test(req.path);
-      if ((req.method !== 'GET' && req.method !== 'HEAD') || !isPage || !req.accepts('html') || !existsSync(indexFile)) {
+      if (!isPage || !req.accepts('html') || !existsSync(indexFile)) {
         next();
         return;
       }
-      res.setHeader('Cache-Control', 'no-cache');
-      res.sendFile(indexFile);
+      // Any page path gets index.html, from its precompressed copies like every other file.
+      const asked = req.url;
+      req.url = '/index.html';
+      otherFiles(req, res, (error?: unknown) => {
+        req.url = asked;
+        next(error);
+      });
     });
   };
   return { assets, pages };
@@ -81,6 +90,11 @@ function staticFiles(clientDir: string, { immutable }: { immutable: boolean }): 
       },
     },
   });
+}
+
+/** express-static-gzip marks a compressed answer before serve-static decides: only reads reach it. */
+function isRead(method: string): boolean {
+  return method === 'GET' || method === 'HEAD';
 }
 
 function isHashedAsset(path: string): boolean {

@@ -110,9 +110,11 @@ describe('compressed delivery', () => {
   });
 
   describe('pages and the service worker', () => {
-    it('serves index.html for a deep link, compressed, revalidated on every use, with the CSP', async () => {
+    it('serves index.html for a deep link from its Brotli copy, revalidated on every use, with the CSP', async () => {
       const res = await rawRequest(server, '/calculators/boost', { Accept: 'text/html', 'Accept-Encoding': 'br' });
       expect(res.status).toBe(200);
+      expect(res.headers['content-encoding']).toBe('br');
+      expect(res.headers['vary']).toMatch(/Accept-Encoding/i);
       expect(res.headers['cache-control']).toBe('no-cache');
       expect(res.headers['content-security-policy']).toContain("script-src 'self'");
       expect(decoded(res).toString()).toContain('<fl-root>');

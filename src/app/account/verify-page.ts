@@ -69,6 +69,7 @@ export class VerifyPage {
       try {
         await this.api.verify(token);
         this.outcome.set({ state: 'verified' });
+        await this.auth.whenKnown();
         if (this.auth.signedIn()) await this.auth.load();
       } catch (error) {
         this.outcome.set({ state: 'failed', message: problemMessage(error) });

@@ -2,6 +2,7 @@ import { Injectable, effect, inject, linkedSignal } from '@angular/core';
 
 import type { Account } from '../../../shared/api/accounts';
 import { AuthService } from '../core/auth.service';
+import { ConnectivityService } from '../core/connectivity.service';
 import { UnitSystem, isUnitSystem } from './unit-system';
 import { browserLanguages, unitSystemForLanguages } from './unit-system-by-region';
 
@@ -17,6 +18,9 @@ const storageKey = 'flowlore.units';
 @Injectable({ providedIn: 'root' })
 export class UnitSystemService {
   private readonly auth = inject(AuthService);
+  private readonly online = inject(ConnectivityService).online;
+  /** A switch made offline, saved to the account when the connection is back. */
+  private unsaved: { system: UnitSystem; userId: string } | null = null;
   private readonly local = readStored() ?? unitSystemForLanguages(browserLanguages());
   /** Saves one after another, so the account ends with the last switch even when clicks outrun the network. */
   private saving: Promise<void> = Promise.resolve();
@@ -33,10 +37,14 @@ export class UnitSystemService {
   readonly preference = this.chosen.asReadonly();
 
   constructor() {
-    // The account's choice becomes this browser's too: after sign-out the next visit opens the same way.
+    // The account's choice becomes this browser's too (after sign-out the next visit opens the same
+    // way), once it is what the page shows: an older answer to a queued save is not stored.
     effect(() => {
       const saved = this.auth.user()?.unitSystem;
-      if (saved) store(saved);
+      if (saved && saved === this.chosen()) store(saved);
+    });
+    effect(() => {
+      if (this.online()) this.saveUnsaved();
     });
   }
 
@@ -45,10 +53,20 @@ export class UnitSystemService {
     store(system);
     const userId = this.auth.user()?.id;
     if (userId === undefined) return;
-    // Fire and forget: a refusal shows in the snackbar (api-errors.interceptor); the switch stands here.
-    // A save still queued when its user has signed out is dropped, never sent for someone else.
+    this.unsaved = { system, userId };
+    if (this.online()) this.saveUnsaved();
+  }
+
+  /**
+   * Fire and forget, in the background (nothing shown; the switch stands here whatever the answer).
+   * A save still queued when its user has signed out is dropped, never sent for someone else.
+   */
+  private saveUnsaved(): void {
+    const pending = this.unsaved;
+    if (pending === null) return;
+    this.unsaved = null;
     this.saving = this.saving
-      .then(() => (this.auth.user()?.id === userId ? this.auth.savePreferences({ unitSystem: system }) : undefined))
+      .then(() => (this.auth.user()?.id === pending.userId ? this.auth.savePreferences({ unitSystem: pending.system }) : undefined))
       .catch(() => undefined);
   }
 }

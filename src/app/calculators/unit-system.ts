@@ -1,6 +1,9 @@
 /* SI or US customary: which of an input's two default units the form uses. */
 
-export type UnitSystem = 'si' | 'us';
+import type { UnitSystem } from '../../../shared/api/accounts';
+
+// Declared once, with the account's preference it is stored as (shared/api/accounts.ts).
+export type { UnitSystem };
 
 export function isUnitSystem(value: unknown): value is UnitSystem {
   return value === 'si' || value === 'us';

@@ -23,13 +23,14 @@ export const apiErrorsInterceptor: HttpInterceptorFn = (req, next) => {
     catchError((error: unknown) => {
       if (!(error instanceof HttpErrorResponse)) return throwError(() => error);
       const path = req.url.split('?')[0] ?? '';
+      const display = req.context.get(PROBLEM_DISPLAY) ?? (req.method === 'GET' ? 'page' : 'snackbar');
       if (error.status === 401 && !OWN_401.includes(path)) {
         auth.setUser(null);
+        if (display === 'background') return throwError(() => error);
         const returnUrl = router.url.startsWith('/account/') ? undefined : router.url;
         void router.navigate(['/account/sign-in'], { queryParams: { returnUrl } });
         return throwError(() => error);
       }
-      const display = req.context.get(PROBLEM_DISPLAY) ?? (req.method === 'GET' ? 'page' : 'snackbar');
       const fieldErrors = problemOf(error)?.errors?.length ?? 0;
       if (display === 'snackbar' || (display === 'form' && fieldErrors === 0)) {
         showNotice(injector, problemMessage(error));

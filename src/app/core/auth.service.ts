@@ -15,6 +15,8 @@ export class AuthService {
   private readonly current = signal<Account | null>(null);
   private readonly answered = signal(false);
   private firstLoad?: Promise<void>;
+  /** Counts changes of who is signed in, so an answer to an older question is dropped. */
+  private changes = 0;
 
   readonly user = this.current.asReadonly();
   /** Whether the server has said who this is (false only while the first GET /api/auth/me is out). */
@@ -38,14 +40,17 @@ export class AuthService {
 
   /** Asks the server who this is; a visitor (or an unreachable API, offline) counts as signed out. */
   async load(): Promise<void> {
+    const asked = this.changes;
+    let user: Account | null = null;
     try {
       const me = await firstValueFrom(this.http.get<MeResponse>('/api/auth/me'));
-      this.current.set(me?.user ?? null);
+      user = me?.user ?? null;
     } catch {
-      this.current.set(null);
-    } finally {
-      this.answered.set(true);
+      user = null;
     }
+    // Signed in or out while the question was out: that newer state stands.
+    if (asked === this.changes) this.set(user);
+    this.answered.set(true);
   }
 
   /**
@@ -56,7 +61,7 @@ export class AuthService {
     const { user } = await firstValueFrom(
       this.http.post<{ user: Account }>('/api/auth/sign-in', credentials, { context: problemDisplay('page') }),
     );
-    this.current.set(user);
+    this.set(user);
     return user;
   }
 
@@ -64,22 +69,31 @@ export class AuthService {
     try {
       await firstValueFrom(this.http.post<void>('/api/auth/sign-out', null));
     } finally {
-      this.current.set(null);
+      this.set(null);
     }
   }
 
   /**
-   * Saves choices that follow the account to other devices (the calculators' units). A refusal shows
-   * in the snackbar like any failed change; success says nothing. The answer updates the account only
-   * if the same person is still signed in.
+   * Saves choices that follow the account to other devices (the calculators' units), in the
+   * background: nothing is shown either way, and a lost session signs the app out without leaving
+   * the page the reader is working on. The answer updates the account only if the same person is
+   * still signed in.
    */
   async savePreferences(preferences: PreferencesRequest): Promise<void> {
-    const { user } = await firstValueFrom(this.http.patch<{ user: Account }>('/api/account/preferences', preferences));
-    if (this.current()?.id === user.id) this.current.set(user);
+    const { user } = await firstValueFrom(
+      this.http.patch<{ user: Account }>('/api/account/preferences', preferences, { context: problemDisplay('background') }),
+    );
+    if (this.current()?.id === user.id) this.set(user);
   }
 
   /** After the server answered with a changed account (profile) or said the session is gone (401). */
   setUser(user: Account | null): void {
+    this.set(user);
+  }
+
+  private set(user: Account | null): void {
+    this.changes += 1;
     this.current.set(user);
+    this.answered.set(true);
   }
 }

@@ -13,9 +13,11 @@ export interface Problem {
 /**
  * Who shows a failed request's problem: `snackbar` (the default for changes), `form` (the form shows
  * field errors beside its fields; anything else still goes to the snackbar) or `page` (the page
- * shows it itself; the default for reads, whose pages have their own error states).
+ * shows it itself; the default for reads, whose pages have their own error states) or `background`
+ * (a save the reader did not ask for in words, such as the units switch following the account:
+ * nothing is shown, and a lost session signs the app out without leaving the page).
  */
-export type ProblemDisplay = 'snackbar' | 'form' | 'page';
+export type ProblemDisplay = 'snackbar' | 'form' | 'page' | 'background';
 export const PROBLEM_DISPLAY = new HttpContextToken<ProblemDisplay | null>(() => null);
 
 export function problemDisplay(display: ProblemDisplay): HttpContext {

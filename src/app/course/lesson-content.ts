@@ -20,6 +20,7 @@ import {
 import { Router } from '@angular/router';
 
 import type { LessonPage } from '../../../shared/api/lessons';
+import { AppUpdates, isMissingChunk } from '../core/app-updates';
 
 /**
  * The live parts load with their own code (the engine, forms, KaTeX) when the reader comes within
@@ -58,6 +59,7 @@ export class LessonContent {
   private readonly environmentInjector = inject(EnvironmentInjector);
   private readonly elementInjector = inject(Injector);
   private readonly router = inject(Router);
+  private readonly updates = inject(AppUpdates);
   private readonly window = inject(DOCUMENT).defaultView;
   private mounted: ComponentRef<unknown>[] = [];
   /** Placeholders still waiting for their component, and what to mount there. */
@@ -139,11 +141,19 @@ export class LessonContent {
     this.waiting.delete(placeholder);
     this.near?.unobserve(placeholder);
     const lesson = this.lesson();
-    void mount().then(() => {
-      // The lesson changed while the code was on its way: that placeholder is gone.
-      if (this.lesson() !== lesson) return;
-      this.updateMathFocus();
-    });
+    mount().then(
+      () => {
+        // The lesson changed while the code was on its way: that placeholder is gone.
+        if (this.lesson() !== lesson) return;
+        this.updateMathFocus();
+      },
+      (error: unknown) => {
+        // Its code is gone from the server (a new version): offer the reload. Not fetched (offline
+        // with no copy yet): try again when the browser is back online.
+        if (isMissingChunk(error) && this.window?.navigator.onLine) this.updates.chunkMissing();
+        this.window?.addEventListener('online', () => this.lesson() === lesson && this.mountLater(placeholder, mount), { once: true });
+      },
+    );
   }
 
   private mount<T>(type: Type<T>, hostElement: HTMLElement, inputs: Readonly<Record<string, unknown>>): void {
