@@ -16,15 +16,12 @@ import { root } from './paths.mjs';
 const browserDir = join(root, 'dist', 'client', 'browser');
 /**
  * The faces every page's first paint sets text in (src/styles/_fonts.scss): Merriweather 400 for
- * the text, Source Sans 3 400 and 600 for the top bar, headings and controls. Asked for at once,
- * they are in by the time the app first renders (it waits for its scripts, which are larger), so
- * no heading reflows when a face arrives late (a layout shift).
+ * the text, Source Sans 3 600 for the top bar and the headings. Asked for at once, they are in by
+ * the time the app first renders (it waits for its scripts, which are larger), so no heading
+ * reflows when a face arrives late (a layout shift). Source Sans 400 (form fields, hints) is left
+ * to the pages that use it.
  */
-const FIRST_PAINT_FONTS = [
-  /^merriweather-latin-400-normal-[A-Z0-9]{8}\.woff2$/,
-  /^source-sans-3-latin-600-normal-[A-Z0-9]{8}\.woff2$/,
-  /^source-sans-3-latin-400-normal-[A-Z0-9]{8}\.woff2$/,
-];
+const FIRST_PAINT_FONTS = [/^merriweather-latin-400-normal-[A-Z0-9]{8}\.woff2$/, /^source-sans-3-latin-600-normal-[A-Z0-9]{8}\.woff2$/];
 /** Text formats worth compressing; woff2, png and the like are compressed already. */
 const COMPRESSIBLE = /\.(js|mjs|css|html|svg|json|webmanifest|txt|ttf|woff|xml|map)$/;
 const MIN_BYTES = 1024;
