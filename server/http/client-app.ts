@@ -1,12 +1,10 @@
-import { existsSync } from 'node:fs';
 import type { ServerResponse } from 'node:http';
-import { join } from 'node:path';
 
 import type { RequestHandler } from 'express';
 import expressStaticGzip from 'express-static-gzip';
 
 /** Build output names carry an 8-character content hash (`main-AB12CD34.js`); media files live in `media/`. */
-const HASHED_FILE = /-[A-Z0-9]{8}\.(js|css|woff2?|ttf|svg|png)(\.br|\.gz)?$/;
+const HASHED_FILE = /-[A-Z0-9]{8}\.(js|css|woff2?|ttf|svg|png)$/;
 
 export interface ClientAppOptions {
   /**
@@ -25,7 +23,6 @@ export interface ClientAppOptions {
  * (`no-cache`). Every other GET for a page gets index.html, so the client's router takes over.
  */
 export function clientApp(clientDir: string, options: ClientAppOptions = {}): ClientHandlers {
-  const indexFile = join(clientDir, 'index.html');
   // Hashed files never change under their name: no validators (ETag, Last-Modified), which a
   // browser would never use on an immutable file, only bytes on every response.
   const hashedFiles = staticFiles(clientDir, { immutable: true });
@@ -50,11 +47,12 @@ export function clientApp(clientDir: string, options: ClientAppOptions = {}): Cl
     otherFiles(req, res, () => {
       // A missing file (an old chunk, a typo) is a 404, never index.html served as script.
       const isPage = !/\.[A-Za-z0-9]+$/.test(req.path);
-      if (!isPage || !req.accepts('html') || !existsSync(indexFile)) {
+      if (!isPage || !req.accepts('html')) {
         next();
         return;
       }
-      // Any page path gets index.html, from its precompressed copies like every other file.
+      // Any page path gets index.html, from its precompressed copies like every other file (no
+      // built client: it falls through to the 404 like any missing file).
       const asked = req.url;
       req.url = '/index.html';
       otherFiles(req, res, (error?: unknown) => {
