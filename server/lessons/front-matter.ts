@@ -10,6 +10,8 @@ export const frontMatterSchema = z
     minutes: z.number().int().min(5).max(120),
     free: z.boolean(),
     objectives: z.array(z.string().min(5)).min(3).max(6),
+    /** Objectives assessed at the bench on the lab sheet, signed off by an instructor. */
+    labObjectives: z.array(z.string().min(5)).max(4).default([]),
     glossary: z.array(z.object({ term: z.string().min(2), definition: z.string().min(10) }).strict()).default([]),
   })
   .strict();

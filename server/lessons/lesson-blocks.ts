@@ -7,10 +7,12 @@ import { parsePresetLines, parseResultLine, type ResultLine } from './preset-val
 export interface BlockCollector {
   embeds: Array<{ calculator: string; inputs: Record<string, InputValue> }>;
   results: ResultLine[];
+  /** The SVG source of a figure by its stem, or undefined when there is none. */
+  figure: (stem: string) => string | undefined;
 }
 
 const BLOCK = /^:::([a-z-]+)[ \t]*([^\n]*)\n([\s\S]*?)\n?^:::[ \t]*(?:\n+|$)/m;
-const KINDS = new Set(['calculator', 'example', 'key-idea', 'caution', 'check']);
+const KINDS = new Set(['calculator', 'example', 'key-idea', 'caution', 'check', 'mistakes', 'figure']);
 
 interface FlowloreBlock extends Tokens.Generic {
   kind: string;
@@ -18,6 +20,7 @@ interface FlowloreBlock extends Tokens.Generic {
   titleTokens: Tokens.Generic[];
   index: number;
   resultIndexes: number[];
+  svg?: string;
 }
 
 /** Our block syntax (content/README.md) as a marked extension. Unknown blocks fail the render. */
@@ -47,6 +50,12 @@ export function lessonBlocks(collector: BlockCollector): MarkedExtension {
               return false;
             })
             .join('\n');
+          if (kind === 'figure') {
+            token.svg = collector.figure(token.arg);
+            if (token.svg === undefined) throw new Error(`figure "${token.arg}" has no file content/figures/${token.arg}.svg`);
+            if (!/<title[\s>]/.test(token.svg) || !/<desc[\s>]/.test(token.svg)) throw new Error(`figure "${token.arg}" needs a <title> and a <desc> (its text alternative)`);
+            if (!body.trim()) throw new Error(`figure "${token.arg}" needs a caption`);
+          }
           if (kind === 'example' && token.resultIndexes.length === 0) throw new Error(`worked example "${token.arg}" has no result line (=> …)`);
           this.lexer.blockTokens(prose, token.tokens ?? []);
           this.lexer.inlineTokens(token.arg, token.titleTokens);
@@ -65,6 +74,10 @@ export function lessonBlocks(collector: BlockCollector): MarkedExtension {
             }
             case 'key-idea':
               return `<aside class="lesson-key-idea" aria-label="Key idea"><p class="lesson-block-label">Key idea</p>${body()}</aside>\n`;
+            case 'mistakes':
+              return `<aside class="lesson-mistakes" aria-label="Common mistakes"><p class="lesson-block-label">Common mistakes</p>${body()}</aside>\n`;
+            case 'figure':
+              return `<figure class="lesson-figure">${token.svg!.replace(/^\s*<\?xml[^>]*>\s*/, '')}<figcaption>${body()}</figcaption></figure>\n`;
             case 'caution':
               return `<aside class="lesson-caution" role="note" aria-label="Caution"><p class="lesson-block-label">Caution</p>${body()}</aside>\n`;
             default:

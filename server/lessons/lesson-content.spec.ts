@@ -15,9 +15,9 @@ describe('the course content', () => {
     expect(library.errors).toEqual([]);
   });
 
-  it('has the nine lessons of the course, unique slugs and orders 1…9, and a free first lesson', () => {
+  it('has the ten lessons of the course, unique slugs and orders 1…10, and a free first lesson', () => {
     if (only) return;
-    expect(library.lessons).toHaveLength(9);
+    expect(library.lessons).toHaveLength(10);
     const orders = library.lessons.map((l) => l.meta.order);
     expect(orders).toEqual(orders.map((_, i) => i + 1));
     expect(new Set(library.lessons.map((l) => l.meta.slug)).size).toBe(library.lessons.length);

@@ -1,5 +1,5 @@
 import { existsSync, readdirSync, readFileSync } from 'node:fs';
-import { join } from 'node:path';
+import { dirname, join } from 'node:path';
 
 import { describeCalculator } from '../../shared/airflow';
 import type { GlossaryEntry, LessonOutline, LessonPage } from '../../shared/api/lessons';
@@ -17,19 +17,27 @@ export interface LessonLibrary {
 }
 
 function outlineOf(lesson: RenderedLesson): LessonOutline {
-  const { slug, title, order, summary, minutes, objectives, free } = lesson.meta;
-  return { slug, title, order, summary, minutes, objectives, free };
+  const { slug, title, order, summary, minutes, objectives, labObjectives, free } = lesson.meta;
+  return { slug, title, order, summary, minutes, objectives, labObjectives, free };
 }
 
-/** Renders every lesson in `dir` once; the API serves the cached bodies. */
+/**
+ * Renders every lesson in `dir` once; the API serves the cached bodies. Figures come from the
+ * `figures` folder beside it (`content/figures/<stem>.svg`).
+ */
 export function loadLessonLibrary(dir: string): LessonLibrary {
+  const figures = join(dirname(dir), 'figures');
+  const figure = (stem: string) => {
+    const file = join(figures, `${stem}.svg`);
+    return /^[a-z0-9-]+$/.test(stem) && existsSync(file) ? readFileSync(file, 'utf8') : undefined;
+  };
   const lessons: RenderedLesson[] = [];
   const errors: string[] = [];
   const files = existsSync(dir) ? readdirSync(dir).filter((f) => f.endsWith('.md')).sort() : [];
   if (files.length === 0) errors.push(`no lesson files (*.md) in ${dir}`);
   for (const file of files) {
     try {
-      lessons.push(renderLesson(readFileSync(join(dir, file), 'utf8'), file));
+      lessons.push(renderLesson(readFileSync(join(dir, file), 'utf8'), file, { figure }));
     } catch (error) {
       errors.push(error instanceof Error ? error.message : String(error));
     }

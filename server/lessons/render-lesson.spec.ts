@@ -55,4 +55,34 @@ describe('renderLesson', () => {
     expect(lesson.html).toContain('data-embed="0"');
     expect(lesson.html).toContain('<details class="lesson-check"><summary>Check yourself: Why?</summary>');
   });
+
+  it('renders a common-mistakes box', () => {
+    const lesson = renderLesson(`${frontMatter}\n:::mistakes\n- Reading one leg of a U-tube: read both.\n:::\n`, 'mistakes.md');
+    expect(lesson.html).toContain('<aside class="lesson-mistakes" aria-label="Common mistakes"><p class="lesson-block-label">Common mistakes</p><ul>');
+  });
+
+  it('inlines a figure as sanitised SVG with its text alternative and caption', () => {
+    const svg = `<?xml version="1.0"?>\n<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 10 10" role="img" aria-labelledby="f-t f-d"><title id="f-t">A box</title><desc id="f-d">One square.</desc><script>alert(1)</script><rect width="5" height="5" onclick="steal()" fill="currentColor"/></svg>`;
+    const lesson = renderLesson(`${frontMatter}\n:::figure box\nThe *box*.\n:::\n`, 'figure.md', { figure: (stem) => (stem === 'box' ? svg : undefined) });
+    expect(lesson.html).toMatch(/^<figure class="lesson-figure"><svg [^>]*role="img"[^>]*>/);
+    expect(lesson.html).toContain('aria-labelledby="f-t f-d"');
+    expect(lesson.html).toContain('<title id="f-t">A box</title><desc id="f-d">One square.</desc>');
+    expect(lesson.html).toContain('<figcaption><p>The <em>box</em>.</p>\n</figcaption></figure>');
+    expect(lesson.html).not.toMatch(/<script|onclick|<\?xml/);
+  });
+
+  it('fails on a figure without a file, a text alternative or a caption', () => {
+    const untitled = '<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 1 1"><rect width="1" height="1"/></svg>';
+    expect(() => renderLesson(`${frontMatter}\n:::figure none\nCaption.\n:::\n`, 'f.md')).toThrow(/no file content\/figures\/none\.svg/);
+    expect(() => renderLesson(`${frontMatter}\n:::figure bare\nCaption.\n:::\n`, 'f.md', { figure: () => untitled })).toThrow(/needs a <title> and a <desc>/);
+    expect(() =>
+      renderLesson(`${frontMatter}\n:::figure ok\n\n:::\n`, 'f.md', { figure: () => '<svg><title>t</title><desc>d</desc></svg>' }),
+    ).toThrow(/needs a caption/);
+  });
+
+  it('reads objectives assessed on the lab sheet', () => {
+    const withLab = frontMatter.replace('---\n', '---\nlabObjectives:\n  - Lock out the bench supply\n');
+    expect(renderLesson(`${withLab}\nText $x$.\n`, 'lab.md').meta.labObjectives).toEqual(['Lock out the bench supply']);
+    expect(renderLesson(`${frontMatter}\nText $x$.\n`, 'plain.md').meta.labObjectives).toEqual([]);
+  });
 });

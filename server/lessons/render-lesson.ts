@@ -30,14 +30,19 @@ export function headingId(text: string): string {
     .replace(/^-|-$/g, '');
 }
 
+export interface RenderOptions {
+  /** The SVG source of a `:::figure <stem>` block, or undefined when there is none. */
+  figure?: (stem: string) => string | undefined;
+}
+
 /** Markdown (with front matter, KaTeX and our blocks) → sanitised HTML plus what the page needs. */
-export function renderLesson(source: string, fileName: string): RenderedLesson {
+export function renderLesson(source: string, fileName: string, options: RenderOptions = {}): RenderedLesson {
   const parsed = matter(source);
   const meta = frontMatterSchema.safeParse(parsed.data);
   if (!meta.success) {
     throw new LessonRenderError(`${fileName}: front matter: ${meta.error.issues.map((i) => `${i.path.join('.')}: ${i.message}`).join('; ')}`);
   }
-  const collector: BlockCollector = { embeds: [], results: [] };
+  const collector: BlockCollector = { embeds: [], results: [], figure: options.figure ?? (() => undefined) };
   const toc: TocEntry[] = [];
   const anchors: string[] = [];
   const marked = new Marked(

@@ -6,13 +6,14 @@ const purify = createDOMPurify(window as unknown as Parameters<typeof createDOMP
 
 /**
  * DOMPurify over rendered lesson HTML: keeps ordinary HTML, KaTeX's MathML and its styled spans,
+ * the figures' SVG (no style elements, scripts or event handlers),
  * and our data-embed/data-try placeholders; drops scripts, event handlers and javascript: URLs.
  */
 export function sanitizeLessonHtml(html: string): string {
   return purify.sanitize(html, {
-    USE_PROFILES: { html: true, mathMl: true },
+    USE_PROFILES: { html: true, mathMl: true, svg: true },
     ADD_TAGS: ['semantics', 'annotation'],
-    ADD_ATTR: ['encoding', 'aria-hidden', 'aria-label', 'role'],
+    ADD_ATTR: ['encoding', 'aria-hidden', 'aria-label', 'aria-labelledby', 'aria-describedby', 'role'],
     FORBID_TAGS: ['style', 'form', 'input', 'button', 'iframe'],
   });
 }

@@ -7,7 +7,10 @@ export interface LessonOutline {
   order: number;
   summary: string;
   minutes: number;
+  /** What the reader can do afterwards, assessed online. */
   objectives: string[];
+  /** Objectives assessed at the bench on the lab sheet and signed off by an instructor. */
+  labObjectives: string[];
   free: boolean;
 }
 
