@@ -47,7 +47,7 @@ describe('the lessons API', () => {
     expect(res.body.map((l: { slug: string }) => l.slug)).toEqual(['first', 'second']);
     expect(res.body[0]).toEqual({
       slug: 'first', title: 'Lesson 1', order: 1, summary: 'A lesson written for the API tests, number 1.', minutes: 15,
-      objectives: ['First objective', 'Second objective', 'Third objective'], free: true,
+      objectives: ['First objective', 'Second objective', 'Third objective'], labObjectives: [], free: true,
     });
   });
 

@@ -4,7 +4,7 @@ import { RouterLink } from '@angular/router';
 
 import { LessonsService } from './lessons.service';
 
-/** The course: the nine lessons in order, each with what it covers and what the reader can do after. */
+/** The course: the ten lessons in order, each with what it covers and what the reader can do after. */
 @Component({
   selector: 'fl-course-outline',
   imports: [MatButton, RouterLink],

@@ -10,7 +10,7 @@ export class LessonsService {
   private readonly http = inject(HttpClient);
   private outlineOnce?: Promise<LessonOutline[]>;
 
-  /** The nine lessons in course order. Call in an injection context (a component's field). */
+  /** The lessons in course order. Call in an injection context (a component's field). */
   outline(): HttpResourceRef<LessonOutline[] | undefined> {
     return httpResource(() => '/api/lessons', { parse: parseOutline });
   }
