@@ -14,6 +14,12 @@ export type QuantityKind =
   | 'velocity'
   /** Rotational speed (engine speed), rpm. */
   | 'speed'
+  /** A cross-section or flow area, m^2. */
+  | 'area'
+  /** Engine power, W. */
+  | 'power'
+  /** Brake specific fuel consumption: fuel mass per unit of work, kg/J. */
+  | 'specificFuelConsumption'
   | 'ratio'
   | 'percent';
 

@@ -50,6 +50,20 @@ describe('unit factors against NIST SP 811 (2008), Appendix B.8', () => {
     ['ft', 'm', 0.3048, 4],
     // NIST SP 811 B.8: liter (L) → cubic meter 1.0 E−03
     ['L/s', 'm^3/s', 1e-3, 2],
+    // NIST SP 811 B.8: liter (L) → cubic meter 1.0 E−03; hour (h) → second 3.6 E+03: 1 L/h = 2.777 778 E−07 m³/s
+    ['L/h', 'm^3/s', 2.777778e-7, 7],
+    // NIST SP 811 B.8: cubic centimeter (cm³) → cubic meter 1.0 E−06; minute → second 6.0 E+01: 1 cc/min = 1.666 667 E−08 m³/s
+    ['cc/min', 'm^3/s', 1.666667e-8, 7],
+    // NIST SP 811 B.8: liter (L) → cubic meter 1.0 E−03, so 1 kg/L = 1.0 E+03 kg/m³
+    ['kg/L', 'kg/m^3', 1000, 2],
+    // NIST SP 811 B.8: square inch (in²) → square meter (m²) 6.4516 E−04 (exact)
+    ['in^2', 'm^2', 6.4516e-4, 5],
+    // NIST SP 811 B.8: square foot (ft²) → square meter (m²) 9.290 304 E−02 (exact)
+    ['ft^2', 'm^2', 9.290304e-2, 7],
+    // NIST SP 811 B.8: horsepower (550 ft · lbf/s) → watt (W) 7.456 999 E+02
+    ['hp', 'W', 745.6999, 7],
+    // NIST SP 811 B.8: pound per horsepower hour [lb/(hp · h)] → kilogram per joule (kg/J) 1.689 659 E−07
+    ['lb/(hp h)', 'kg/J', 1.689659e-7, 7],
   ] as const)('1 %s = %d %s', (from, to, printed, digits) => {
     expectPrinted(convert(1, from, to), printed, digits);
   });
@@ -64,6 +78,19 @@ describe('unit factors against NIST SP 811 (2008), Appendix B.8', () => {
 
   it('counts rpm as 1/min for flow arithmetic (a revolution counted as 1, not 2π)', () => {
     expect(convert(6000, 'rpm', '1/s')).toBeCloseTo(100, 12);
+  });
+
+  it('gives a specific fuel consumption in g/(kW·h) from the pound and the horsepower', () => {
+    // NIST SP 811 B.8: pound (avoirdupois) → kilogram 0.453 592 37 (exact); horsepower (550 ft · lbf/s) → watt 7.456 999 E+02;
+    // by hand: 1 lb/(hp·h) = 453.592 37 g / 0.745 699 9 kW·h = 608.2774 g/(kW·h)
+    // (the brief's "168.9659" is the mantissa of NIST's kg/J figure 1.689 659 E−07, not a g/(kW·h) figure)
+    const byHand = 453.59237 / 0.7456999;
+    expectPrinted(convert(1, 'lb/(hp h)', 'g/(kW h)'), byHand, 7);
+    expectPrinted(convert(1, 'lb/(hp h)', 'g/(kW h)'), 608.2774, 7);
+    // the same figure from the SI value: 1.689 659 E−07 kg/J × 3.6 E+06 J/(kW·h) × 1000 g/kg
+    expectPrinted(convert(1, 'lb/(hp h)', 'g/(kW h)'), 1.689659e-7 * 3.6e6 * 1000, 6);
+    // shop common practice: a good gasoline engine at full load, about 0.50 lb/(hp·h) ≈ 300 g/(kW·h)
+    expect(convert(0.5, 'lb/(hp h)', 'g/(kW h)')).toBeCloseTo(304.1, 1);
   });
 
   it('reads % as 0.01', () => {
@@ -97,7 +124,8 @@ describe('unit parsing', () => {
   });
 
   it('accepts mathjs syntax and the trade units', () => {
-    for (const good of ['kPa', 'psi', 'degF', 'degC', 'K', 'm^3/s', 'lb/min', 'in^3', 'L/s', 'g/s', 'kg/m^3', 'inH2O', 'inHg', 'cfm', 'rpm', '%', '1/s', 'kg m^-3']) {
+    for (const good of ['kPa', 'psi', 'degF', 'degC', 'K', 'm^3/s', 'lb/min', 'in^3', 'L/s', 'g/s', 'kg/m^3', 'inH2O', 'inHg', 'cfm', 'rpm', '%', '1/s', 'kg m^-3',
+      'in^2', 'cm^2', 'hp', 'kW', 'g/(kW h)', 'lb/(hp h)', 'kg/L', 'cc/min', 'L/h']) {
       expect(parseUnit(good)).toBeDefined();
     }
   });

@@ -71,6 +71,9 @@ export const SI_UNIT: Readonly<Record<QuantityKind, string>> = {
   density: 'kg/m^3',
   velocity: 'm/s',
   speed: '1/s',
+  area: 'm^2',
+  power: 'W',
+  specificFuelConsumption: 'kg/J',
   ratio: '',
   percent: '',
 };
@@ -83,11 +86,17 @@ export const UNITS_BY_KIND: Readonly<Record<QuantityKind, readonly string[]>> = 
   temperatureDifference: ['K', 'degC', 'degF', 'degR'],
   length: ['m', 'km', 'cm', 'mm', 'in', 'ft'],
   volume: ['m^3', 'L', 'cm^3', 'in^3', 'ft^3', 'gal'],
-  volumeFlow: ['m^3/s', 'm^3/min', 'm^3/h', 'L/s', 'L/min', 'cfm', 'ft^3/s', 'gal/min'],
+  volumeFlow: ['m^3/s', 'm^3/min', 'm^3/h', 'L/s', 'L/min', 'L/h', 'cc/min', 'cfm', 'ft^3/s', 'gal/min'],
   massFlow: ['kg/s', 'kg/min', 'kg/h', 'g/s', 'lb/s', 'lb/min', 'lb/h'],
-  density: ['kg/m^3', 'g/L', 'g/cm^3', 'lb/ft^3', 'lb/in^3'],
+  // kg/L for liquid fuel (gasoline about 0.745 kg/L); the rest for air.
+  density: ['kg/m^3', 'g/L', 'kg/L', 'g/cm^3', 'lb/ft^3', 'lb/in^3'],
   velocity: ['m/s', 'km/h', 'ft/s', 'ft/min'],
   speed: ['rpm', '1/s', 'Hz'],
+  area: ['m^2', 'cm^2', 'mm^2', 'in^2', 'ft^2'],
+  // hp is the mechanical horsepower, 550 ft·lbf/s (NIST SP 811 B.8: 7.456 999 E+02 W).
+  power: ['W', 'kW', 'hp'],
+  // Written with a space for the product: g/(kW h) is grams per kilowatt-hour.
+  specificFuelConsumption: ['g/(kW h)', 'lb/(hp h)'],
   ratio: ['', '%'],
   percent: ['%', ''],
 };
@@ -104,6 +113,9 @@ export const DEFAULT_UNITS: Readonly<Record<QuantityKind, UnitPair>> = {
   density: { si: 'kg/m^3', us: 'lb/ft^3' },
   velocity: { si: 'm/s', us: 'ft/s' },
   speed: { si: 'rpm', us: 'rpm' },
+  area: { si: 'cm^2', us: 'in^2' },
+  power: { si: 'kW', us: 'hp' },
+  specificFuelConsumption: { si: 'g/(kW h)', us: 'lb/(hp h)' },
   ratio: { si: '', us: '' },
   percent: { si: '%', us: '%' },
 };

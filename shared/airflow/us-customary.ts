@@ -9,10 +9,11 @@
 const US_CUSTOMARY_UNITS: ReadonlySet<string> = new Set([
   'psi', 'inHg', 'inHg_60F', 'inH2O', 'inH2O_39F', 'inH2O_60F',
   'degF', 'degR',
-  'in', 'ft', 'in^3', 'ft^3', 'gal',
+  'in', 'ft', 'in^2', 'ft^2', 'in^3', 'ft^3', 'gal',
   'cfm', 'ft^3/s', 'gal/min',
   'lb/s', 'lb/min', 'lb/h', 'lb/ft^3', 'lb/in^3',
   'ft/s', 'ft/min',
+  'hp', 'lb/(hp h)',
 ]);
 
 /** Whether a unit is US customary (psi, inH2O, °F, cfm, lb/min…) rather than SI or metric. */

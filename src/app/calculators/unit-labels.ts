@@ -11,6 +11,8 @@ const labels: Readonly<Record<string, string>> = {
   inHg_60F: 'inHg (60 °F)',
   mmH2O: 'mmH₂O',
   cmH2O: 'cmH₂O',
+  'g/(kW h)': 'g/(kW·h)',
+  'lb/(hp h)': 'lb/(hp·h)',
 };
 
 /** A unit as a picker shows it: `m^3/s` → `m³/s`, `degC` → `°C`, '' → `no unit`. */
