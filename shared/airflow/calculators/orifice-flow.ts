@@ -56,7 +56,7 @@ export const orificeFlow = defineCalculator({
     },
     pressureDrop: {
       ...pressureDrop('Pressure drop', '\\Delta p', { value: 28, unit: 'inH2O' },
-        'Pressure difference across the orifice (the test pressure). Needed unless you solve for it.'),
+        'Pressure difference across the orifice (on a bench, the orifice\'s own reading, not the test pressure across the part). Needed unless you solve for it.'),
       // 7 kPa: the metric round figure for a 28 inH2O test pressure (shop common practice).
       exampleSi: { value: 7, unit: 'kPa' },
       optional: true,
