@@ -2,6 +2,7 @@
 import { airDensity } from './calculators/air-density';
 import { altitudePressure } from './calculators/altitude-pressure';
 import { boost } from './calculators/boost';
+import { dischargeCoefficient } from './calculators/discharge-coefficient';
 import { engineDemand } from './calculators/engine-demand';
 import { flowAtTestPressure } from './calculators/flow-at-test-pressure';
 import { fuelFlow } from './calculators/fuel-flow';
@@ -9,8 +10,11 @@ import { gasCompression } from './calculators/gas-compression';
 import { manometer } from './calculators/manometer';
 import { massFlow } from './calculators/mass-flow';
 import { orificeFlow } from './calculators/orifice-flow';
+import { portVelocity } from './calculators/port-velocity';
+import { powerPotential } from './calculators/power-potential';
 import { pressureConvert } from './calculators/pressure-convert';
 import { sensorCorrection } from './calculators/sensor-correction';
+import { speedDensity } from './calculators/speed-density';
 import { standardFlow } from './calculators/standard-flow';
 import { uncertainty } from './calculators/uncertainty';
 import { type CalculatorDefinition, exampleInputs, toSummary } from './define';
@@ -23,12 +27,16 @@ export const CALCULATORS: readonly CalculatorDefinition[] = [
   flowAtTestPressure,
   engineDemand,
   orificeFlow,
+  portVelocity,
+  dischargeCoefficient,
   airDensity,
   altitudePressure,
   standardFlow,
   massFlow,
   gasCompression,
   fuelFlow,
+  powerPotential,
+  speedDensity,
   boost,
   sensorCorrection,
   uncertainty,

@@ -5,6 +5,16 @@ import { density, pressureDrop } from './common-inputs';
 import { BENCH_SUCTION_HAZARD } from './hazards';
 
 type Unknown = 'volumeFlow' | 'diameter' | 'dischargeCoefficient' | 'pressureDrop';
+
+/**
+ * C_d is below 1 for an orifice referred to its bore with the approach velocity neglected. A
+ * flow coefficient C/√(1−β⁴) (ISO 5167-1: the discharge coefficient C times the velocity-of-
+ * approach factor) or a coefficient referred to a larger-than-minimum area can exceed 1: allowed
+ * up to this sane bound, with a warning above 1 (our choice of bound).
+ */
+const MAX_DISCHARGE_COEFFICIENT = 1.5;
+const ABOVE_ONE =
+  'is above 1. A plain orifice referred to its bore cannot do that. It is possible only for a flow coefficient that includes the approach speed (ISO 5167-1), or for a coefficient referred to an area other than the bore (see the discharge-coefficient calculator for valves and ports). Check the inputs.';
 const LABELS: Record<Unknown, string> = {
   volumeFlow: 'Volume flow',
   diameter: 'Orifice diameter',
@@ -50,9 +60,9 @@ export const orificeFlow = defineCalculator({
       kind: 'ratio',
       optional: true,
       min: bound(0, '', false),
-      max: bound(1, ''),
+      max: bound(MAX_DISCHARGE_COEFFICIENT, ''),
       example: 0.6,
-      help: 'How much of the ideal flow the orifice really passes: about 0.6 for a sharp-edged plate, near 0.98 for a smooth bellmouth. Needed unless you solve for it.',
+      help: 'How much of the ideal flow the orifice really passes: about 0.6 for a sharp-edged plate, near 0.98 for a smooth bellmouth. It is below 1 for an orifice referred to its bore. Needed unless you solve for it.',
     },
     pressureDrop: {
       ...pressureDrop('Pressure drop', '\\Delta p', { value: 28, unit: 'inH2O' },
@@ -88,6 +98,9 @@ export const orificeFlow = defineCalculator({
       return ctx.value(name);
     };
     if (ctx.has(unknown)) ctx.warn(unknown, `${LABELS[unknown]} is the quantity being solved for; the value given is ignored.`);
+    if (unknown !== 'dischargeCoefficient' && ctx.has('dischargeCoefficient') && ctx.value('dischargeCoefficient') > 1) {
+      ctx.warn('dischargeCoefficient', `The discharge coefficient ${ABOVE_ONE}`);
+    }
     const rho = ctx.value('density');
     let q = need('volumeFlow');
     let d = need('diameter');
@@ -112,7 +125,7 @@ export const orificeFlow = defineCalculator({
       ctx.step('Orifice equation solved for the discharge coefficient', 'C_{d} = \\frac{Q}{A\\sqrt{2\\,\\Delta p/\\rho}},\\quad A = \\frac{\\pi d^2}{4}',
         `C_{d} = \\frac{${qty(q, 'm^3/s')}}{${qty(a, 'm^2')} \\times \\sqrt{2 \\times ${qty(dp, 'Pa')} / ${qty(rho, 'kg/m^3')}}}`,
         `C_{d} = ${num(cd)}`);
-      if (cd > 1) ctx.warn('', 'The discharge coefficient comes out above 1, which a real orifice cannot reach: check the flow, diameter and pressure drop.');
+      if (cd > 1) ctx.warn('', `The discharge coefficient comes out at ${Number(cd.toPrecision(3))}, which ${ABOVE_ONE}`);
     } else {
       const a = circleArea(d);
       dp = (rho / 2) * (q / (cd * a)) ** 2;
