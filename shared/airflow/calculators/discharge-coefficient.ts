@@ -143,7 +143,7 @@ export const dischargeCoefficient = defineCalculator({
     if (cd > IMPLAUSIBLE_CD) {
       ctx.warn('flow', `A coefficient of ${Number(cd.toPrecision(3))} is far above 1. Check the flow, the diameters, the lift and the test pressure.`);
     } else if (cd > 1) {
-      ctx.note('The coefficient is above 1. The part passes more air than a perfect jet through the reference area. That is allowed when the reference is a conventional area, such as the curtain or the throat, rather than the smallest section the air must cross at this lift, or when the pressure recovers after the smallest section. It is not a mistake on its own, but check the inputs.');
+      ctx.note('The coefficient is above 1: the part passes more air than a perfect jet through the reference area. That is allowed when the reference is an agreed area, such as the curtain or the throat, and not the smallest section all the air must cross at this lift. It also happens when the pressure recovers after the smallest section. Check the inputs all the same.');
     }
     if (ld > LARGE_LIFT_RATIO) ctx.warn('lift', 'The lift is more than half the valve diameter, which is rare. Check the lift and the diameter.');
     if (reference === 'curtain' && ld > 0.25) {
