@@ -1,7 +1,8 @@
 /*
  * Compression of air: isentropic compression with a compressor efficiency, intercooler
- * effectiveness, and the combined gas law for a fixed mass (textbook thermodynamics, e.g.
- * Çengel & Boles, "Thermodynamics: An Engineering Approach", ideal-gas isentropic relations).
+ * effectiveness, the combined gas law for a fixed mass (textbook thermodynamics, e.g.
+ * Çengel & Boles, "Thermodynamics: An Engineering Approach", ideal-gas isentropic relations), and
+ * the corrected mass flow a compressor map is drawn against.
  */
 
 /** Ratio of specific heats of air used for compressor sums (cold-air standard). */
@@ -30,4 +31,12 @@ export function intercoolerOutletTemperature(inK: number, effectiveness: number,
 /** Combined gas law for a fixed mass: V2 = V1 (p1/p2)(T2/T1), absolute p and T. */
 export function combinedGasLawVolume(p1: number, v1: number, t1: number, p2: number, t2: number): number {
   return (v1 * (p1 / p2) * t2) / t1;
+}
+
+/**
+ * Corrected (referred) mass flow of a compressor map: ṁ_c = ṁ·√(T₁/T_ref)/(p₁/p_ref), inlet p₁, T₁
+ * absolute (standard turbomachinery practice: Dixon & Hall; SAE J1826, from memory).
+ */
+export function correctedMassFlow(massFlow: number, inletPa: number, inletK: number, referencePa: number, referenceK: number): number {
+  return (massFlow * Math.sqrt(inletK / referenceK)) / (inletPa / referencePa);
 }

@@ -31,8 +31,11 @@ export const STANDARD_CONDITIONS: readonly StandardCondition[] = [
     'A common industrial reference: 293.15 K, 101 325 Pa, dry air.', 293.15, 101325, 0),
   condition('din-1343', '0 °C, 101.325 kPa, dry (DIN 1343 "normal")',
     'DIN 1343 normal conditions, behind "normal cubic metres" (Nm³): 273.15 K, 101 325 Pa, dry air.', 273.15, 101325, 0),
-  condition('us-standard-air', '68 °F, 29.92 inHg, 36 % RH (US standard air)',
-    'US shop standard air: 68 °F, 29.92 inHg, 36 % relative humidity, about 0.075 lb/ft³ (1.20 kg/m³) — shop common practice.',
+  // ASME's definition of standard air (its displacement-compressor test code; from memory, review E22):
+  // 68 °F, 14.696 psia, 36 % RH, 0.075 lb/ft³. Other "standard air" definitions exist (70 °F dry; 68 °F at 50 % RH).
+  // We keep 29.92 inHg, the figure US shops write: 14.6954 psia, 0.004 % below 14.696 psia, too little to matter.
+  condition('us-standard-air', '68 °F, 29.92 inHg (14.696 psia), 36 % RH (US standard air)',
+    'US standard air as ASME defines it (its displacement-compressor test code): 68 °F, 14.696 psia (29.92 inHg), 36 % relative humidity, about 0.075 lb/ft³ (1.20 kg/m³). Other "standard air" definitions exist, such as 70 °F dry air or 68 °F at 50 % RH: always say which one you used.',
     293.15, convert(29.92, 'inHg', 'Pa'), 0.36),
 ];
 

@@ -97,7 +97,7 @@ describe('standard-flow', () => {
   it('US standard air is about 0.075 lb/ft³', () => {
     const r = run('standard-flow', { flow: q(100, 'cfm'), temperature: q(68, 'degF'), pressure: q(29.92, 'inHg'), relativeHumidity: q(36, '%'), standard: 'us-standard-air', correction: 'mass-equivalent' },
       { standardDensity: 'lb/ft^3', standardFlow: 'cfm' });
-    // shop common practice: standard air 0.075 lb/ft³ at 68 °F, 29.92 inHg, 36 % RH
+    // ASME standard air (displacement-compressor test code, from memory; review E22): 0.075 lb/ft³ at 68 °F, 14.696 psia, 36 % RH
     expect(out(r, 'standardDensity')).toBeCloseTo(0.075, 3);
     // measured in the standard condition itself, the flow does not change
     expect(out(r, 'standardFlow')).toBeCloseTo(100, 8);
@@ -118,6 +118,30 @@ describe('standard-flow', () => {
     // ideal gas by hand: (28.8 inHg/29.921 inHg)·(288.15 K/308.15 K) ≈ 0.900, less a little for the vapour
     expect(ratio).toBeGreaterThan(0.88);
     expect(ratio).toBeLessThan(0.9);
+  });
+
+  it('US standard air is ASME\'s 68 °F, 14.696 psia, 36 % RH', () => {
+    const us = std('us-standard-air');
+    // ASME standard air (from memory; review E22): 68 °F = 293.15 K, 14.696 psia (NIST SP 811 B.8: psi → Pa 6.894 757 E+03), 36 % RH;
+    // we keep the 29.92 inHg shops write, within 0.005 % of it
+    expect(us?.temperatureK).toBeCloseTo(293.15, 12);
+    expect(Math.abs((us?.pressurePa ?? 0) / (14.696 * 6894.757) - 1)).toBeLessThan(5e-5);
+    expect(us?.relativeHumidity).toBe(0.36);
+    // review, "checked and correct": CIPM density of US standard air 1.2007 kg/m³
+    expect(us?.densityKgM3).toBeCloseTo(1.2007, 4);
+  });
+
+  it('says which figure it gives: a corrected bench flow or a standard flow (SCFM-style)', () => {
+    const inputs = { flow: q(254, 'cfm'), temperature: q(80, 'degF'), pressure: q(29.62, 'inHg'), relativeHumidity: q(68, '%'), standard: 'us-standard-air' };
+    const bench = run('standard-flow', { ...inputs, correction: 'bench-reading' }, { standardFlow: 'cfm' });
+    const mass = run('standard-flow', { ...inputs, correction: 'mass-equivalent' }, { standardFlow: 'cfm' });
+    // lesson 5's July reading (its result lines): 249.2 cfm corrected bench flow, 244.4 cfm standard flow
+    expect(out(bench, 'standardFlow')).toBeCloseTo(249.2, 1);
+    expect(out(mass, 'standardFlow')).toBeCloseTo(244.4, 1);
+    expect(bench.notes).toEqual([expect.stringContaining('corrected bench flow')]);
+    expect(bench.steps.some((s) => s.title.startsWith('Corrected bench flow'))).toBe(true);
+    expect(mass.notes).toEqual([expect.stringContaining('standard flow')]);
+    expect(mass.steps.some((s) => s.title.startsWith('Standard flow'))).toBe(true);
   });
 
   it('converts back from standard to actual', () => {

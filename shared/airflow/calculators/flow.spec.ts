@@ -1,6 +1,7 @@
 import * as fc from 'fast-check';
 import { evaluate } from '../index';
 import type { InputValue } from '../index';
+import { nozzleExpansibility, orificeExpansibility } from '../flow';
 import { out, q, run } from './run-calculator.spec-support';
 
 
@@ -20,6 +21,87 @@ describe('flow-at-test-pressure', () => {
   it('warns when the pressure drop is large enough to squeeze the air', () => {
     const r = run('flow-at-test-pressure', { flow: q(100, 'cfm'), fromPressureDrop: q(28, 'inH2O'), toPressureDrop: q(80, 'inH2O') });
     expect(r.warnings.map((w) => w.field)).toEqual(['toPressureDrop']);
+  });
+
+  // ISO 5167-2:2003 orifice expansibility with β → 0, κ = 1.4, written out by hand: ε = 1 − 0.351[1 − τ^(1/κ)]
+  const isoOrifice = (tau: number) => 1 - 0.351 * (1 - tau ** (1 / 1.4));
+  // ISO 5167-3:2003 nozzle expansibility with β → 0, κ = 1.4, by hand: ε = √[κτ^(2/κ)/(κ−1) · (1 − τ^((κ−1)/κ))/(1 − τ)]
+  const isoNozzle = (tau: number) => Math.sqrt(((1.4 * tau ** (2 / 1.4)) / 0.4) * ((1 - tau ** (0.4 / 1.4)) / (1 - tau)));
+  // NIST SP 811 B.8: conventional inch of water 249.0889 Pa; ambient 101 325 Pa (ISO 2533 sea level)
+  const tau = (inH2O: number) => 1 - (inH2O * 249.08891) / 101325;
+  const convert10to28 = (model: string) => run('flow-at-test-pressure',
+    { flow: q(200, 'cfm'), fromPressureDrop: q(10, 'inH2O'), toPressureDrop: q(28, 'inH2O'), model, ambientPressure: q(101.325, 'kPa') }, { flow: 'cfm' });
+
+  it('the orifice and nozzle models follow the ISO 5167 expansibility formulas worked by hand', () => {
+    const orifice = convert10to28('orifice');
+    expect(out(orifice, 'expansibilityRatio')).toBeCloseTo(isoOrifice(tau(28)) / isoOrifice(tau(10)), 12);
+    expect(out(orifice, 'flow')).toBeCloseTo(200 * Math.sqrt(2.8) * (isoOrifice(tau(28)) / isoOrifice(tau(10))), 9);
+    const nozzle = convert10to28('nozzle');
+    expect(out(nozzle, 'expansibilityRatio')).toBeCloseTo(isoNozzle(tau(28)) / isoNozzle(tau(10)), 12);
+    expect(orifice.warnings).toEqual([]);
+  });
+
+  it('10 → 28 inH2O by the square-root rule reads 1.1 % high for an orifice-like part and 2.5 % high for a nozzle-like one', () => {
+    const root = out(convert10to28('square-root'), 'flow');
+    // review E10 (ISO 5167-2 and -3 expansibility): ε₂₈/ε₁₀ = 0.989 (orifice-like) and 0.975 (nozzle-like)
+    expect(out(convert10to28('orifice'), 'expansibilityRatio')).toBeCloseTo(0.989, 3);
+    expect(out(convert10to28('nozzle'), 'expansibilityRatio')).toBeCloseTo(0.975, 3);
+    // review E10: the square-root figure reads 1.1 % and 2.5 % high
+    expect((root / out(convert10to28('orifice'), 'flow') - 1) * 100).toBeCloseTo(1.1, 1);
+    expect((root / out(convert10to28('nozzle'), 'flow') - 1) * 100).toBeCloseTo(2.5, 1);
+  });
+
+  it('lesson 2\'s core example, 95 L/s at 2 kPa to 8 kPa: the real flow is 1.5–3.3 % under the square-root 190 L/s', () => {
+    const at8 = (model: string) => run('flow-at-test-pressure',
+      { flow: q(95, 'L/s'), fromPressureDrop: q(2, 'kPa'), toPressureDrop: q(8, 'kPa'), model, ambientPressure: q(101.325, 'kPa') }, { flow: 'L/s' });
+    // review E10: 1.5 % (orifice-like) to 3.3 % (nozzle-like) under 190 L/s
+    expect((1 - out(at8('orifice'), 'flow') / 190) * 100).toBeCloseTo(1.5, 1);
+    expect((1 - out(at8('nozzle'), 'flow') / 190) * 100).toBeCloseTo(3.3, 1);
+    // a ratio of 4 between the test pressures warns on every model; the square-root warning says how far off it reads
+    const root = at8('square-root');
+    expect(out(root, 'flow')).toBeCloseTo(190, 10);
+    expect(root.warnings.map((w) => w.field)).toEqual(['toPressureDrop']);
+    expect(root.warnings[0]?.message).toContain('reads high here: by about 1.5 % for an orifice-like part and 3.4 % for a nozzle-like one');
+    expect(at8('orifice').warnings.map((w) => w.field)).toEqual(['toPressureDrop']);
+    expect(at8('nozzle').warnings.map((w) => w.field)).toEqual(['toPressureDrop']);
+  });
+
+  it('converting down by more than 3 times says the square-root figure reads low', () => {
+    const r = run('flow-at-test-pressure', { flow: q(250, 'cfm'), fromPressureDrop: q(28, 'inH2O'), toPressureDrop: q(8, 'inH2O') });
+    expect(r.warnings.map((w) => w.field)).toEqual(['toPressureDrop']);
+    expect(r.warnings[0]?.message).toContain('reads low');
+  });
+
+  it('the expansibility models assume 101.325 kPa with a warning, and refuse a test pressure as large as the ambient', () => {
+    const assumed = run('flow-at-test-pressure', { flow: q(200, 'cfm'), fromPressureDrop: q(10, 'inH2O'), toPressureDrop: q(28, 'inH2O'), model: 'nozzle' });
+    expect(assumed.warnings.map((w) => w.field)).toEqual(['ambientPressure']);
+    const outcome = evaluate('flow-at-test-pressure', { inputs: { flow: q(200, 'cfm'), fromPressureDrop: q(10, 'inH2O'), toPressureDrop: q(110, 'kPa'), model: 'orifice', ambientPressure: q(100, 'kPa') } });
+    expect(outcome.ok ? [] : outcome.errors.map((e) => e.field)).toEqual(['toPressureDrop']);
+  });
+
+  it('expansibility is at most 1 and falls as the pressure drop grows, for both models (property)', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 10, max: 20000, noNaN: true }), fc.double({ min: 1, max: 5000, noNaN: true }), (dp, extra) => {
+        for (const f of [orificeExpansibility, nozzleExpansibility]) {
+          const eps = (drop: number) => f(1 - drop / 101325);
+          expect(eps(dp)).toBeLessThanOrEqual(1);
+          expect(eps(dp + extra)).toBeLessThan(eps(dp));
+        }
+        // ISO 5167-2 vs -3: an orifice's free jet makes up for part of the expansion by contracting less, so its ε stays nearer 1
+        expect(orificeExpansibility(1 - dp / 101325)).toBeGreaterThan(nozzleExpansibility(1 - dp / 101325));
+      }),
+      { numRuns: 100 },
+    );
+  });
+
+  it('converting up with either expansibility model gives less than the square-root rule (property)', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 1, max: 20, noNaN: true }), fc.double({ min: 1.01, max: 3, noNaN: true }), fc.constantFrom('orifice', 'nozzle'), (from, k, model) => {
+        const inputs = { flow: q(200, 'cfm'), fromPressureDrop: q(from, 'inH2O'), toPressureDrop: q(from * k, 'inH2O'), ambientPressure: q(29.92, 'inHg') };
+        expect(out(run('flow-at-test-pressure', { ...inputs, model }), 'flow')).toBeLessThan(out(run('flow-at-test-pressure', inputs), 'flow'));
+      }),
+      { numRuns: 50 },
+    );
   });
 
   it('flow rises with the pressure drop (property)', () => {
@@ -86,6 +168,20 @@ describe('engine-demand', () => {
     const cfm = run('engine-demand', { displacement: q(5.0, 'L'), speed: q(6000, 'rpm'), volumetricEfficiency: 85, density: q(1.2, 'kg/m^3') }, { volumeFlow: 'cfm' });
     // NIST SP 811 B.8: ft³/min → m³/s 4.719 474 E−04, so 0.2125 m³/s = 450.26 cfm (≈ 450.3 cfm)
     expect(out(cfm, 'volumeFlow')).toBeCloseTo(450.262, 3);
+  });
+
+  it('names the density the VE is referred to, and warns of boost counted twice', () => {
+    const inputs = { displacement: q(2.0, 'L'), speed: q(6000, 'rpm'), density: q(2.0, 'kg/m^3') };
+    const doubled = run('engine-demand', { ...inputs, volumetricEfficiency: q(180, '%') });
+    // review E4 (Heywood §2.10, from memory): a VE of 180 % with the manifold density counts boost twice
+    expect(doubled.warnings.map((w) => w.field)).toEqual(['volumetricEfficiency']);
+    expect(doubled.steps.some((s) => s.title.includes('manifold air density'))).toBe(true);
+    const ambient = run('engine-demand', { ...inputs, volumetricEfficiency: q(180, '%'), densityReference: 'ambient', density: q(1.18, 'kg/m^3') });
+    expect(ambient.warnings).toEqual([]);
+    expect(ambient.steps.some((s) => s.title.includes('ambient air density'))).toBe(true);
+    // the arithmetic does not change with the reference, only which density belongs with the VE:
+    // by hand 2.0 L × 100 /s × 0.9 / 2 × 2.0 kg/m³ = 0.18 kg/s
+    expect(out(run('engine-demand', { ...inputs, volumetricEfficiency: q(90, '%') }), 'massFlow')).toBeCloseTo(0.18, 12);
   });
 
   it('a two-stroke fills once per revolution: twice the four-stroke figure', () => {

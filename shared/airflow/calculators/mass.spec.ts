@@ -49,6 +49,62 @@ describe('fuel-flow', () => {
     expect(out(r, 'fuelMassFlow')).toBeCloseTo(100 / 7.84, 9);
   });
 
+  // NIST SP 811 B.8: pound (avoirdupois) = 0.453 592 37 kg (exact)
+  const LB_G = 453.59237;
+  const sams = { airMassFlow: q(100.2, 'g/s'), airFuelRatio: 12.5, injectorCount: 4 };
+
+  it('lesson 6: 15.9 lb/h per cylinder at 80 % duty needs injectors of at least 19.9 lb/h', () => {
+    const r = run('fuel-flow', sams, { fuelPerInjector: 'lb/h', minimumInjectorRating: 'lb/h', minimumInjectorRatingVolume: 'cc/min' });
+    // lesson 6 / review E6: 100.2 g/s ÷ 12.5 ÷ 4 = 2.004 g/s = 15.9 lb/h per cylinder; ÷ 0.80 (shop common practice) ≈ 19.9 lb/h
+    const perInjector = (100.2 / 12.5 / 4) * 3600 / LB_G;
+    expect(out(r, 'fuelPerInjector')).toBeCloseTo(perInjector, 9);
+    expect(out(r, 'fuelPerInjector')).toBeCloseTo(15.9, 1);
+    expect(out(r, 'minimumInjectorRating')).toBeCloseTo(perInjector / 0.8, 9);
+    expect(out(r, 'minimumInjectorRating')).toBeCloseTo(19.9, 1);
+    // by hand: lb/h → cc/min = × 453.592 37 g/lb ÷ 60 min/h ÷ 0.745 g/cm³ (mid-range EN 228 gasoline, from memory): 201.7 cc/min
+    expect(out(r, 'minimumInjectorRatingVolume')).toBeCloseTo(((perInjector / 0.8) * LB_G) / 60 / 0.745, 6);
+    expect(out(r, 'minimumInjectorRatingVolume')).toBeCloseTo(201.7, 1);
+    expect(r.notes).toEqual([expect.stringContaining('The fuel needed is not the injector size')]);
+    expect(r.warnings).toEqual([]);
+  });
+
+  it('refers the rating to its own fuel pressure: flow goes with the square root of the pressure across the injector', () => {
+    const r = run('fuel-flow', { ...sams, maxDutyCycle: q(75, '%'), fuelDensity: q(0.72, 'kg/L'), ratedFuelPressure: q(3, 'bar'), operatingFuelPressure: q(4, 'bar') },
+      { minimumInjectorRating: 'g/s', minimumInjectorRatingVolume: 'cc/min' });
+    // lesson 2's square-root rule: an injector rated at 3 bar flows √(4/3) times as much at 4 bar, so the rating needed is smaller
+    const rated = (100.2 / 12.5 / 4 / 0.75) * Math.sqrt(3 / 4);
+    expect(out(r, 'minimumInjectorRating')).toBeCloseTo(rated, 12);
+    // by hand: g/s ÷ 0.72 g/cm³ × 60 s/min
+    expect(out(r, 'minimumInjectorRatingVolume')).toBeCloseTo((rated / 0.72) * 60, 9);
+    expect(r.notes.some((n) => n.includes('about 15 % more than its rating'))).toBe(true);
+  });
+
+  it('warns when only one fuel pressure is given, or the duty cycle leaves little margin', () => {
+    const one = run('fuel-flow', { ...sams, operatingFuelPressure: q(58, 'psi') });
+    expect(one.warnings.map((w) => w.field)).toEqual(['ratedFuelPressure']);
+    const flatOut = run('fuel-flow', { ...sams, maxDutyCycle: q(95, '%') });
+    expect(flatOut.warnings.map((w) => w.field)).toEqual(['maxDutyCycle']);
+    const half = evaluate('fuel-flow', { inputs: { ...sams, injectorCount: 4.5 } });
+    expect(half.ok ? [] : half.errors.map((e) => e.field)).toEqual(['injectorCount']);
+  });
+
+  it('no injector count, no sizing', () => {
+    const r = run('fuel-flow', { airMassFlow: q(100.2, 'g/s'), airFuelRatio: 12.5 });
+    expect(Object.keys(r.outputs).sort()).toEqual(['airFuelRatio', 'fuelMassFlow', 'lambda']);
+    expect(r.notes).toEqual([]);
+  });
+
+  it('the rating needed falls as the duty cycle or the pressure in use rises (property)', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 30, max: 95, noNaN: true }), fc.double({ min: 1, max: 5, noNaN: true }), fc.double({ min: 2, max: 6, noNaN: true }), (duty, more, bar) => {
+        const rating = (d: number, p: number) => out(run('fuel-flow', { ...sams, maxDutyCycle: q(d, '%'), ratedFuelPressure: q(3, 'bar'), operatingFuelPressure: q(p, 'bar') }), 'minimumInjectorRating');
+        expect(rating(duty + more, bar)).toBeLessThan(rating(duty, bar));
+        expect(rating(duty, bar + 0.5)).toBeLessThan(rating(duty, bar));
+      }),
+      { numRuns: 50 },
+    );
+  });
+
   it('needs one of AFR or lambda, not both', () => {
     const both = evaluate('fuel-flow', { inputs: { airMassFlow: q(1, 'kg/s'), airFuelRatio: 12, lambda: 0.9 } });
     expect(both.ok ? [] : both.errors.map((e) => e.field)).toEqual(['lambda']);

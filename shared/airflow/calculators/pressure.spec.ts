@@ -31,6 +31,48 @@ describe('pressure-convert', () => {
     expect(r.warnings.map((w) => w.field)).toEqual(['ambient']);
   });
 
+  it('an idle vacuum of 19 inHg with the barometer at 29.6 inHg is a MAP of about 35.9 kPa absolute', () => {
+    const r = run('pressure-convert', { pressure: q(19, 'inHg'), kind: 'vacuum', ambient: q(29.6, 'inHg') }, { absolute: 'kPa', gauge: 'inHg', vacuum: 'inHg' });
+    // review G5 worked example: MAP ≈ 35.9 kPa; by hand (29.6 − 19) inHg × 3.386 389 kPa/inHg (NIST SP 811 B.8) = 35.8957 kPa
+    expect(out(r, 'absolute')).toBeCloseTo(((29.6 - 19) * 3386.389) / 1000, 4);
+    expect(out(r, 'absolute')).toBeCloseTo(35.9, 1);
+    // a vacuum reading is a negative gauge pressure of the same size
+    expect(out(r, 'gauge')).toBeCloseTo(-19, 10);
+    expect(out(r, 'vacuum')).toBeCloseTo(19, 10);
+    expect(r.warnings).toEqual([]);
+  });
+
+  it('gives the vacuum for readings at or below ambient, and none above', () => {
+    const suction = run('pressure-convert', { pressure: q(-28, 'inH2O'), kind: 'gauge', ambient: q(29.92, 'inHg') }, { vacuum: 'inH2O' });
+    // by hand: 28 inH2O below ambient is a vacuum of 28 inH2O
+    expect(out(suction, 'vacuum')).toBeCloseTo(28, 10);
+    const map = run('pressure-convert', { pressure: q(35, 'kPa'), kind: 'absolute', ambient: q(100, 'kPa') }, { vacuum: 'kPa' });
+    // by hand: 100 − 35 = 65 kPa below ambient
+    expect(out(map, 'vacuum')).toBeCloseTo(65, 10);
+    const tyre = run('pressure-convert', { pressure: q(30, 'psi'), kind: 'gauge', ambient: q(29.92, 'inHg') });
+    expect(tyre.outputs['vacuum']).toBeUndefined();
+  });
+
+  it('refuses a vacuum as large as the ambient pressure, or a negative one', () => {
+    const tooDeep = evaluate('pressure-convert', { inputs: { pressure: q(30, 'inHg'), kind: 'vacuum', ambient: q(29.6, 'inHg') } });
+    expect(tooDeep.ok ? [] : tooDeep.errors.map((e) => e.field)).toEqual(['pressure']);
+    const negative = evaluate('pressure-convert', { inputs: { pressure: q(-5, 'inHg'), kind: 'vacuum', ambient: q(29.6, 'inHg') } });
+    expect(negative.ok ? [] : negative.errors.map((e) => e.field)).toEqual(['pressure']);
+  });
+
+  it('vacuum, gauge and absolute readings of one pressure agree (property)', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 0, max: 99, noNaN: true }), fc.double({ min: 60, max: 110, noNaN: true }), (vac, amb) => {
+        fc.pre(vac < amb);
+        const fromVacuum = run('pressure-convert', { pressure: q(vac, 'kPa'), kind: 'vacuum', ambient: q(amb, 'kPa') });
+        const fromGauge = run('pressure-convert', { pressure: q(-vac, 'kPa'), kind: 'gauge', ambient: q(amb, 'kPa') });
+        expect(out(fromVacuum, 'absolute')).toBeCloseTo(out(fromGauge, 'absolute'), 6);
+        expect(out(fromGauge, 'vacuum')).toBeCloseTo(vac * 1000, 6);
+      }),
+      { numRuns: 50 },
+    );
+  });
+
   it('refuses a gauge reading below a perfect vacuum, naming the field', () => {
     const outcome = evaluate('pressure-convert', { inputs: { pressure: q(-20, 'psi'), kind: 'gauge', ambient: q(14.7, 'psi') } });
     expect(outcome.ok ? [] : outcome.errors.map((e) => e.field)).toEqual(['pressure']);

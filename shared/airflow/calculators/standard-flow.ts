@@ -10,7 +10,7 @@ export const standardFlow = defineCalculator({
   title: 'Actual and standard flow',
   topic: 'Air density',
   summary:
-    'Corrects a flow measured in today\'s air to a named standard condition (or back), so tests on different days compare. Offers both corrections a shop meets: the same mass at standard density, and a pressure-drop bench reading corrected to standard density.',
+    'Corrects a flow measured in today\'s air to a named standard condition (or back), so tests on different days compare. Offers both corrections a shop meets: the standard flow (the same mass at standard density, what SCFM means in compressed-air and metering work), and a pressure-drop bench reading corrected to standard density (the corrected bench flow).',
   inputs: {
     flow: {
       label: 'Flow',
@@ -37,18 +37,18 @@ export const standardFlow = defineCalculator({
       kind: 'option',
       options: STANDARD_CONDITIONS.map((s) => ({ value: s.value, label: s.label, help: s.definition })),
       example: 'us-standard-air',
-      help: 'The reference air the corrected figure is quoted in. Always write it beside the figure.',
+      help: 'The reference air the corrected figure is quoted in. Always write it beside the figure. "Standard air" has more than one definition (the US one here is ASME\'s: 68 °F, 14.696 psia, 36 % RH).',
     },
     correction: {
       label: 'Correction',
       symbol: '',
       kind: 'option',
       options: [
-        { value: 'mass-equivalent', label: 'Same mass at standard density: Q·ρ/ρ_std', help: 'The volume the same mass of air would take at the standard condition; use for engines, fuelling and mass-flow meters.' },
-        { value: 'bench-reading', label: 'Bench reading at standard density: Q·√(ρ/ρ_std)', help: 'The flow a fixed restriction would pass at the same pressure drop in standard air; use for flow-bench figures at a test pressure.' },
+        { value: 'mass-equivalent', label: 'Standard flow, same mass at standard density: Q·ρ/ρ_std', help: 'The volume the same mass of air would take at the standard condition: what "standard flow" and SCFM mean for compressors, meters and engines. Use for engines, fuelling and mass-flow meters.' },
+        { value: 'bench-reading', label: 'Corrected bench flow at standard density: Q·√(ρ/ρ_std)', help: 'The flow a fixed restriction would pass at the same pressure drop in standard air. Use for flow-bench figures at a test pressure. It is not an SCFM figure: do not compare it with a meter or a compressor rating.' },
       ],
       example: 'bench-reading',
-      help: 'Mass-equivalent keeps the mass; bench-reading keeps the pressure drop across the same part.',
+      help: 'The standard flow keeps the mass of air; the corrected bench flow keeps the pressure drop across the same part. They are different numbers: write which one beside the figure.',
     },
     direction: {
       label: 'Direction',
@@ -65,7 +65,8 @@ export const standardFlow = defineCalculator({
     },
   },
   outputs: {
-    standardFlow: { label: 'Standard flow', symbol: 'Q_{std}', kind: 'volumeFlow', us: 'cfm' },
+    standardFlow: { label: 'Corrected flow at standard density', symbol: 'Q_{std}', kind: 'volumeFlow', us: 'cfm',
+      help: 'With the bench-reading correction: the corrected bench flow (at standard density). With the mass-equivalent correction: the standard flow, the same mass of air at standard density (SCFM-style).' },
     actualFlow: { label: 'Actual flow', symbol: 'Q_{act}', kind: 'volumeFlow', us: 'cfm' },
     density: { label: 'Test air density', symbol: '\\rho', kind: 'density', us: 'lb/ft^3' },
     standardDensity: { label: 'Standard air density', symbol: '\\rho_{std}', kind: 'density', us: 'lb/ft^3' },
@@ -93,13 +94,16 @@ export const standardFlow = defineCalculator({
       ? `\\sqrt{\\frac{${qty(rho, 'kg/m^3')}}{${qty(rhoStd, 'kg/m^3')}}}`
       : `\\frac{${qty(rho, 'kg/m^3')}}{${qty(rhoStd, 'kg/m^3')}}`;
     const title = bench
-      ? 'Bench reading corrected to standard density (same pressure drop, same part)'
-      : 'Same mass of air expressed at standard density';
+      ? 'Corrected bench flow: the bench reading at standard density (same pressure drop, same part)'
+      : 'Standard flow: the same mass of air expressed at standard density';
     if (toStandard) {
       ctx.step(title, `Q_{std} = Q_{act}\\,${ratio}`, `Q_{std} = ${qty(qAct, 'm^3/s')} \\times ${ratioNum} = ${qty(qAct, 'm^3/s')} \\times ${num(factor, 6)}`, `Q_{std} = ${qty(qStd, 'm^3/s')}`);
     } else {
       ctx.step(title, `Q_{act} = Q_{std} \\Big/ ${ratio}`, `Q_{act} = ${qty(qStd, 'm^3/s')} \\Big/ ${ratioNum} = ${qty(qStd, 'm^3/s')} \\div ${num(factor, 6)}`, `Q_{act} = ${qty(qAct, 'm^3/s')}`);
     }
+    ctx.note(bench
+      ? `The figure at standard density is a corrected bench flow, ${std.label}. It is not a standard flow (SCFM) in the compressed-air or metering sense, which keeps the mass of air: do not compare it with a meter, a compressor or a compressor map.`
+      : `The figure at standard density is a standard flow, ${std.label}: the volume the same mass of air takes in standard air (SCFM-style). Do not compare it with a corrected bench flow at a test pressure.`);
     return { standardFlow: qStd, actualFlow: qAct, density: rho, standardDensity: rhoStd };
   },
 });
