@@ -8,8 +8,8 @@ import type { Evaluation } from './form-state';
 import { formatFigure, unitLabel, unitSuffix } from './unit-labels';
 
 /**
- * The results: each output with its value and its own unit picker, then any notes on the
- * formula's range. When the engine refuses the inputs, a short "fix the marked fields" takes
+ * The results: what they show in words (the calculator's notes, e.g. whether a gain is shown),
+ * each output with its value and its own unit picker, then any notes on the formula's range. When the engine refuses the inputs, a short "fix the marked fields" takes
  * their place, so no stale figure is ever on screen. The region is polite-live: it changes only
  * after the form has been still for a moment, so screen readers hear settled results.
  */
@@ -36,6 +36,9 @@ export class CalculationResults {
       .outputs.filter((item) => result.outputs[item.output.name] !== undefined)
       .map((item) => ({ ...item, value: result.outputs[item.output.name]! }));
   });
+
+  /** The calculator's own conclusions and caveats, plain text, in its order. */
+  protected readonly conclusions = computed(() => this.evaluation().result?.notes ?? []);
 
   protected readonly notes = computed(() =>
     (this.evaluation().result?.warnings ?? []).map((warning) => ({

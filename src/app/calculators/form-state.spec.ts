@@ -1,5 +1,6 @@
 import { describeCalculator, type CalculatorSummary } from '../../../shared/airflow';
-import { blankState, calculate, convertToSystem, exampleState, outputUnitOf, parseTyped, presetState } from './form-state';
+import { blankState, calculate, convertToSystem, exampleState, outputUnitOf, presetState, toRequest } from './form-state';
+import { parseTyped } from './typed-numbers';
 
 function calculator(id: string): CalculatorSummary {
   const summary = describeCalculator(id);
@@ -109,5 +110,103 @@ describe('shop units and lesson presets', () => {
     expect(state.options['fluid']).toBe('water');
     expect(state.picks[summary.groups[0]!.id]).toBe('pressure');
     expect(state.outputUnits['height']).toBe(summary.outputs.find((o) => o.name === 'height')?.defaultUnit.us);
+  });
+});
+
+/** A calculator with one list input, as the catalogue describes one (InputSummary.list). */
+function readingsCalculator(): CalculatorSummary {
+  return {
+    id: 'readings-only',
+    title: 'Readings',
+    topic: 'Sensors and uncertainty',
+    summary: '',
+    inputs: [
+      {
+        name: 'readings',
+        label: 'Readings',
+        symbol: 'Q',
+        kind: 'volumeFlow',
+        help: 'Repeat readings of one flow.',
+        optional: false,
+        units: ['m^3/s', 'L/s', 'cfm'],
+        defaultUnit: { si: 'L/s', us: 'cfm' },
+        list: { min: 2, max: 30 },
+        // Readings for the worked example of course-review-1 E1: n = 3 refits, s = 1.2 cfm.
+        example: { values: [248.8, 250.0, 251.2], unit: 'cfm' },
+      },
+    ],
+    groups: [],
+    outputs: [],
+  };
+}
+
+describe('an input that takes a list of readings', () => {
+  it('opens on the example readings, one text with spaces between them', () => {
+    const summary = readingsCalculator();
+    expect(exampleState(summary, 'us').quantities['readings']).toEqual({ text: '248.8 250 251.2', unit: 'cfm' });
+    // Each reading converted like a single value (NIST SP 811: 1 ft³/min = 0.471 947 4 L/s).
+    expect(exampleState(summary, 'si').quantities['readings']).toEqual({ text: '117.421 117.987 118.553', unit: 'L/s' });
+    expect(presetState(summary, { readings: { values: [1, 2.5], unit: 'L/s' } }, 'us').quantities['readings']).toEqual({
+      text: '1 2.5',
+      unit: 'L/s',
+    });
+  });
+
+  it('converts every reading with the US/SI switch, and keeps a piece that is no number as typed', () => {
+    const summary = readingsCalculator();
+    const si = convertToSystem(summary, exampleState(summary, 'us'), 'si');
+    expect(si.quantities['readings']).toEqual({ text: '117.421 117.987 118.553', unit: 'L/s' });
+    // Back again from six significant figures, as a single value comes back (117.421 L/s is 248.801 cfm).
+    expect(convertToSystem(summary, si, 'us').quantities['readings']).toEqual({ text: '248.801 250 251.2', unit: 'cfm' });
+
+    const typo = { ...si, quantities: { readings: { text: '248.8, 25O; 251.2', unit: 'cfm' } } };
+    expect(convertToSystem(summary, typo, 'si').quantities['readings']).toEqual({ text: '117.421 25O 118.553', unit: 'L/s' });
+    const nothing = { ...si, quantities: { readings: { text: 'abc', unit: 'cfm' } } };
+    expect(convertToSystem(summary, nothing, 'si').quantities['readings']).toEqual({ text: 'abc', unit: 'L/s' });
+  });
+
+  it('goes to the engine as a list in one unit, or is refused beside its field with the text kept', () => {
+    const summary = readingsCalculator();
+    const state = exampleState(summary, 'us');
+    state.quantities['readings'] = { text: '248.8; 250.0, 251.2', unit: 'cfm' };
+    expect(toRequest(summary, state)).toEqual({
+      request: { inputs: { readings: { values: [248.8, 250, 251.2], unit: 'cfm' } }, outputUnits: {} },
+      errors: [],
+    });
+
+    state.quantities['readings'] = { text: '248,8 250,0', unit: 'cfm' };
+    const refused = toRequest(summary, state);
+    expect(refused.request.inputs).toEqual({});
+    expect(refused.errors).toEqual([
+      { field: 'readings', message: 'Readings: write decimals with a point (248.8) and put a space between readings.' },
+    ]);
+    expect(state.quantities['readings']?.text).toBe('248,8 250,0');
+  });
+});
+
+describe('the comparison of two tests in the form', () => {
+  it('sends both lists and shows the verdict among the notes', () => {
+    const summary = calculator('compare-tests');
+    const readingsA = summary.inputs.find((input) => input.name === 'readingsA');
+    expect(readingsA?.list).toEqual({ min: 2, max: 30 });
+    const state = exampleState(summary, 'us');
+    state.quantities['readingsA'] = { text: '248.8 250.0 251.2', unit: 'cfm' };
+    state.quantities['readingsB'] = { text: '252.8, 254.0, 255.2', unit: 'cfm' };
+    const evaluation = calculate(summary, state);
+    expect(evaluation.messages).toEqual([]);
+    // course-review-1 E1's worked example: n = 3, s = 1.2 cfm, same day: U95 = 2.78 × 0.98 = 2.7 cfm.
+    expect(evaluation.result?.outputs['differenceExpandedUncertainty']?.value).toBeCloseTo(2.72, 2);
+    expect(evaluation.result?.outputs['differenceExpandedUncertainty']?.unit).toBe('cfm');
+    expect(evaluation.result?.notes[0]).toMatch(/4\.0 ± 2\.7 cfm is shown/);
+  });
+
+  it('files a list that cannot be read under its field, with the text kept', () => {
+    const summary = calculator('compare-tests');
+    const state = exampleState(summary, 'us');
+    state.quantities['readingsB'] = { text: '252.8 25A.0 255.2', unit: 'cfm' };
+    const evaluation = calculate(summary, state);
+    expect(evaluation.result).toBeUndefined();
+    expect(evaluation.fieldErrors.get('readingsB')).toMatch(/“25A\.0” is not a number/);
+    expect(state.quantities['readingsB']?.text).toBe('252.8 25A.0 255.2');
   });
 });

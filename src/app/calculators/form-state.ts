@@ -15,9 +15,13 @@ import {
   convert,
   evaluate,
 } from '../../../shared/airflow';
+import { formatTyped, parseReadings, parseTyped, readingsProblem, splitReadings, typingProblem } from './typed-numbers';
 import { type UnitSystem, isUsCustomary } from './unit-system';
 
-/** A quantity as typed: the text is kept as is, so nothing the reader typed is ever lost. */
+/**
+ * A quantity as typed: the text is kept as is, so nothing the reader typed is ever lost. An
+ * input that takes a list of readings (`InputSummary.list`) keeps them all in one text.
+ */
 export interface QuantityEntry {
   text: string;
   unit: string;
@@ -121,7 +125,7 @@ export function presetState(summary: CalculatorSummary, inputs: Readonly<Record<
       continue;
     }
     const quantity = exampleQuantity(input, given);
-    if (quantity !== undefined) state.quantities[input.name] = { text: String(quantity.value), unit: quantity.unit };
+    if (quantity !== undefined) state.quantities[input.name] = { text: quantity.values.map(String).join(' '), unit: quantity.unit };
   }
   for (const group of summary.groups) {
     const first = group.inputs.find((name) => inputs[name] !== undefined);
@@ -130,20 +134,23 @@ export function presetState(summary: CalculatorSummary, inputs: Readonly<Record<
   return state;
 }
 
-function exampleQuantity(input: InputSummary, example: InputValue): { value: number; unit: string } | undefined {
-  if (typeof example === 'number') return { value: example, unit: input.kind === 'percent' ? '%' : '' };
-  return typeof example === 'object' ? example : undefined;
+/** An example or preset as readings in one unit: a single value is a list of one. */
+function exampleQuantity(input: InputSummary, example: InputValue): { values: number[]; unit: string } | undefined {
+  if (typeof example === 'number') return { values: [example], unit: input.kind === 'percent' ? '%' : '' };
+  if (typeof example !== 'object') return undefined;
+  return 'values' in example ? example : { values: [example.value], unit: example.unit };
 }
 
-function inSystem(input: InputSummary, given: { value: number; unit: string }, system: UnitSystem): QuantityEntry {
+function inSystem(input: InputSummary, given: { values: number[]; unit: string }, system: UnitSystem): QuantityEntry {
   const target = defaultUnitOf(input, system);
   const otherSystem = system === 'si' ? isUsCustomary(given.unit) : !isUsCustomary(given.unit);
   const neutral = input.defaultUnit === undefined || input.defaultUnit.si === input.defaultUnit.us;
-  if (neutral || !otherSystem || given.unit === target) return { text: String(given.value), unit: given.unit };
-  const converted = convertQuantity(input, given.value, given.unit, target);
-  return converted === undefined
-    ? { text: String(given.value), unit: given.unit }
-    : { text: formatTyped(converted), unit: target };
+  const asWritten = { text: given.values.map(String).join(' '), unit: given.unit };
+  if (neutral || !otherSystem || given.unit === target) return asWritten;
+  const converted = given.values.map((value) => convertQuantity(input, value, given.unit, target));
+  return converted.some((value) => value === undefined)
+    ? asWritten
+    : { text: converted.map((value) => formatTyped(value!)).join(' '), unit: target };
 }
 
 /**
@@ -157,6 +164,10 @@ export function convertToSystem(summary: CalculatorSummary, state: FormState, sy
     const entry = state.quantities[input.name];
     if (entry === undefined) continue;
     const target = defaultUnitOf(input, system);
+    if (input.list !== undefined) {
+      quantities[input.name] = readingsToUnit(input, entry, target);
+      continue;
+    }
     const value = parseTyped(entry.text);
     if (value === undefined || entry.unit === target) {
       quantities[input.name] = value === undefined ? { text: entry.text, unit: target } : entry;
@@ -170,6 +181,26 @@ export function convertToSystem(summary: CalculatorSummary, state: FormState, sy
   return { ...state, quantities, outputUnits };
 }
 
+/**
+ * Readings moved to another unit one by one, like single values; a piece that is not a number
+ * stays as typed between them. Text with no number at all keeps its characters and takes the
+ * new unit, as a single value does.
+ */
+function readingsToUnit(input: InputSummary, entry: QuantityEntry, target: string): QuantityEntry {
+  if (entry.unit === target) return entry;
+  const pieces = splitReadings(entry.text);
+  const values = pieces.map(parseTyped);
+  if (values.every((value) => value === undefined)) return { text: entry.text, unit: target };
+  const moved: string[] = [];
+  for (const [i, piece] of pieces.entries()) {
+    const value = values[i];
+    const converted = value === undefined ? undefined : convertQuantity(input, value, entry.unit, target);
+    if (value !== undefined && converted === undefined) return entry;
+    moved.push(converted === undefined ? piece : formatTyped(converted));
+  }
+  return { text: moved.join(' '), unit: target };
+}
+
 /** The engine's `convert`, read as an interval for temperature differences (1 K = 1.8 °F, no offset). */
 function convertQuantity(input: InputSummary, value: number, from: string, to: string): number | undefined {
   try {
@@ -179,27 +210,6 @@ function convertQuantity(input: InputSummary, value: number, from: string, to: s
   } catch {
     return undefined;
   }
-}
-
-/** A converted value as the reader would type it: six significant figures, no trailing noise. */
-export function formatTyped(value: number): string {
-  return String(Number(value.toPrecision(6)));
-}
-
-const numberPattern = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
-
-/** A typed number: spaces between digit groups and a typographic minus are allowed; '' and junk are not. */
-export function parseTyped(text: string): number | undefined {
-  const compact = text.trim().replace(/[\s\u00a0\u202f]/g, '').replace(/^\u2212/, '-');
-  if (!numberPattern.test(compact)) return undefined;
-  const value = Number(compact);
-  return Number.isFinite(value) ? value : undefined;
-}
-
-function typingProblem(input: InputSummary, text: string): string {
-  return text.includes(',')
-    ? `${input.label}: write decimals with a point (1.5) and no thousands separators.`
-    : `${input.label} must be a number, such as 20, 0.75 or 1.5e3.`;
 }
 
 /**
@@ -219,8 +229,14 @@ export function toRequest(summary: CalculatorSummary, state: FormState): { reque
     }
     const entry = state.quantities[input.name];
     if (entry === undefined || entry.text.trim() === '') continue;
+    if (input.list !== undefined) {
+      const values = parseReadings(entry.text);
+      if (values === undefined) errors.push({ field: input.name, message: readingsProblem(input.label, entry.text) });
+      else inputs[input.name] = { values, unit: entry.unit };
+      continue;
+    }
     const value = parseTyped(entry.text);
-    if (value === undefined) errors.push({ field: input.name, message: typingProblem(input, entry.text) });
+    if (value === undefined) errors.push({ field: input.name, message: typingProblem(input.label, entry.text) });
     else inputs[input.name] = { value, unit: entry.unit };
   }
   const outputUnits: Record<string, string> = {};

@@ -6,6 +6,9 @@
  *   name=text~unit   a quantity input: the text as typed, "~", the unit token
  *   name=text        a quantity with no unit (a ratio, a fraction); in a hand-written link, a
  *                    quantity that needs a unit takes the input's default for the link's system
+ *   name=a_b_c~unit  an input that takes a list of readings: the readings as typed, joined by
+ *                    "_" (readingsA=248.8_250_251.2~cfm); a hand-written link may separate
+ *                    them with commas or spaces too
  *   name=choice      an option input
  *   pick.group=name  the chosen member of a one-of group, written only when the values do not
  *                    already show it (the first member given, else the group's first member)
@@ -13,19 +16,24 @@
  *   out.name=unit    an output's unit, written only where it differs from the system's default
  *                    (outputUnitOf: the shop's unit in SI, e.g. °C rather than K)
  *
- * Unit tokens are the engine's unit names with "^" dropped, "/" written "_per_" and "%" written
- * "pct", so a link needs no percent-encoding: m^3/s → m3_per_s, kg/m^3 → kg_per_m3, % → pct.
+ * Unit tokens are the engine's unit names with "^" and brackets dropped, "/" written "_per_", "%"
+ * written "pct" and a space (a product) written ".", so a link needs no percent-encoding:
+ * m^3/s → m3_per_s, kg/m^3 → kg_per_m3, % → pct, g/(kW h) → g_per_kW.h.
  * Empty inputs and the hidden members of one-of groups are left out. Reserved names ("units" and
  * names with a dot) cannot clash with the engine's input names, which are plain identifiers.
  */
 import type { CalculatorSummary } from '../../../shared/airflow';
 import { type FormState, blankState, defaultUnitOf, isGiven, outputUnitOf } from './form-state';
+import { splitReadings } from './typed-numbers';
 import { type UnitSystem, isUnitSystem } from './unit-system';
 
 export type ShareParams = Record<string, string>;
 
+/** Between the readings of a list input in a link. */
+const readingsSeparator = '_';
+
 export function unitToken(unit: string): string {
-  return unit.replace(/%/g, 'pct').replace(/\^/g, '').replace(/\//g, '_per_');
+  return unit.replace(/%/g, 'pct').replace(/\^/g, '').replace(/\//g, '_per_').replace(/[()]/g, '').replace(/ /g, '.');
 }
 
 /** A token back to one of the units offered (a raw engine unit name is accepted too). */
@@ -43,8 +51,10 @@ export function encodeShareLink(summary: CalculatorSummary, state: FormState, sy
       continue;
     }
     const entry = state.quantities[input.name];
-    const text = entry?.text.trim() ?? '';
-    if (entry === undefined || text === '') continue;
+    const typed = entry?.text.trim() ?? '';
+    if (entry === undefined || typed === '') continue;
+    // "_" needs no percent-encoding, where a space would be written "%20" or "+".
+    const text = input.list === undefined ? typed : splitReadings(typed).join(readingsSeparator);
     params[input.name] = entry.unit === '' ? text : `${text}~${unitToken(entry.unit)}`;
   }
   for (const group of summary.groups) {
@@ -98,10 +108,10 @@ export function decodeShareLink(
     }
     const units = input.units ?? [];
     const cut = raw.lastIndexOf('~');
-    state.quantities[input.name] =
-      cut < 0
-        ? { text: raw.trim(), unit: units.includes('') ? '' : defaultUnitOf(input, system) }
-        : { text: raw.slice(0, cut).trim(), unit: unitFromToken(raw.slice(cut + 1), units) };
+    const typed = (cut < 0 ? raw : raw.slice(0, cut)).trim();
+    const text = input.list === undefined ? typed : typed.split(readingsSeparator).join(' ').trim();
+    const unit = cut < 0 ? (units.includes('') ? '' : defaultUnitOf(input, system)) : unitFromToken(raw.slice(cut + 1), units);
+    state.quantities[input.name] = { text, unit };
   }
   for (const group of summary.groups) {
     const picked = params[`pick.${group.id}`];
