@@ -22,6 +22,18 @@ describe('CalculationCache', () => {
     expect(b).toMatchObject(evaluate('altitude-pressure', higher));
   });
 
+  it('keys on every reading of a list input, in order', () => {
+    const cache = new CalculationCache();
+    const request = exampleRequest('compare-tests')!;
+    const oneMore = { inputs: { ...request.inputs, readingsB: { values: [252.8, 254.0, 255.2, 254.0], unit: 'cfm' } } };
+    const a = cache.evaluate('compare-tests', request);
+    const b = cache.evaluate('compare-tests', oneMore);
+    expect(cache.size).toBe(2);
+    expect(b).toMatchObject(evaluate('compare-tests', oneMore));
+    expect(a.ok && b.ok && a.result.outputs['differenceStandardUncertainty']!.value).not.toBe(b.ok && b.result.outputs['differenceStandardUncertainty']!.value);
+    expect(cache.evaluate('compare-tests', structuredClone(request))).toBe(a);
+  });
+
   it('stays bounded', () => {
     const cache = new CalculationCache(3);
     for (let m = 0; m < 10; m++) cache.evaluate('altitude-pressure', { inputs: { altitude: { value: m * 100, unit: 'm' } } });

@@ -24,14 +24,15 @@ function expectProblem(res: request.Response, status: number): void {
 }
 
 describe('GET /api/calculators', () => {
-  it('lists all fourteen calculators with their input and output schemas', async () => {
+  it('lists all nineteen calculators with their input and output schemas', async () => {
     const res = await request(app).get('/api/calculators');
     expect(res.status).toBe(200);
     const ids = res.body.map((c: { id: string }) => c.id).sort();
     expect(ids).toEqual(
       [
-        'air-density', 'altitude-pressure', 'boost', 'engine-demand', 'flow-at-test-pressure', 'fuel-flow',
-        'gas-compression', 'manometer', 'mass-flow', 'orifice-flow', 'pressure-convert', 'sensor-correction',
+        'air-density', 'altitude-pressure', 'boost', 'compare-tests', 'discharge-coefficient', 'engine-demand',
+        'flow-at-test-pressure', 'fuel-flow', 'gas-compression', 'manometer', 'mass-flow', 'orifice-flow',
+        'port-velocity', 'power-potential', 'pressure-convert', 'sensor-correction', 'speed-density',
         'standard-flow', 'uncertainty',
       ].sort(),
     );
@@ -131,6 +132,43 @@ describe('POST /api/calculators/:id', () => {
     const res = await request(app).post('/api/calculators/air-density').send({ inputs: { method: 'cipm2007' } });
     expectProblem(res, 400);
     expect(res.body.errors.map((e: { field: string }) => e.field)).toEqual(expect.arrayContaining(['inputs.temperature', 'inputs.pressure']));
+  });
+
+  it('takes lists of readings and answers with a verdict in its notes (compare-tests)', async () => {
+    const body = {
+      inputs: {
+        readingsA: { values: [248.8, 250.0, 251.2], unit: 'cfm' },
+        readingsB: { values: [252.8, 254.0, 255.2], unit: 'cfm' },
+        setup: 'same-day',
+      },
+      outputUnits: { differenceExpandedUncertainty: 'cfm' },
+    };
+    const res = await request(app).post('/api/calculators/compare-tests').send(body);
+    expect(res.status).toBe(200);
+    // course review 1, E1: U₉₅ = t₉₅(4) × 0.98 cfm = 2.7 cfm on the same bench and day
+    expect(res.body.outputs.differenceExpandedUncertainty.value).toBeCloseTo(2.72, 2);
+    expect(res.body.notes[0]).toBe('A gain of 4.0 ± 2.7 cfm is shown (95 % confidence).');
+    expect(res.body).toEqual((evaluate('compare-tests', body) as { result: unknown }).result);
+    const again = await request(app).post('/api/calculators/compare-tests').send(body);
+    expect(again.text).toBe(res.text);
+  });
+
+  it('refuses a bad list with a 400 problem naming the field and the reading', async () => {
+    const base = { readingsB: { values: [252.8, 254.0, 255.2], unit: 'cfm' } };
+    const cases: Array<[unknown, RegExp]> = [
+      [{ values: [250], unit: 'cfm' }, /2 to 30 readings/],
+      [{ values: [250, -3, 251], unit: 'cfm' }, /reading 2 must be above 0/],
+      [{ value: 250, unit: 'cfm' }, /takes a list/],
+      [{ values: [250, 251], unit: 'psi' }, /not a unit of volume flow/],
+    ];
+    for (const [readingsA, message] of cases) {
+      const res = await request(app).post('/api/calculators/compare-tests').send({ inputs: { ...base, readingsA } });
+      expectProblem(res, 400);
+      expect(res.body.errors).toEqual([{ field: 'inputs.readingsA', message: expect.stringMatching(message) }]);
+    }
+    const shape = await request(app).post('/api/calculators/compare-tests').send({ inputs: { ...base, readingsA: { values: ['250', 251], unit: 'cfm' } } });
+    expectProblem(shape, 400);
+    expect(shape.body.errors.map((e: { field: string }) => e.field)).toContain('inputs.readingsA');
   });
 
   it('answers an unknown id with a 404 problem even with a valid body', async () => {

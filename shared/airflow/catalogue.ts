@@ -2,6 +2,7 @@
 import { airDensity } from './calculators/air-density';
 import { altitudePressure } from './calculators/altitude-pressure';
 import { boost } from './calculators/boost';
+import { compareTests } from './calculators/compare-tests';
 import { dischargeCoefficient } from './calculators/discharge-coefficient';
 import { engineDemand } from './calculators/engine-demand';
 import { flowAtTestPressure } from './calculators/flow-at-test-pressure';
@@ -40,6 +41,7 @@ export const CALCULATORS: readonly CalculatorDefinition[] = [
   boost,
   sensorCorrection,
   uncertainty,
+  compareTests,
 ];
 
 const byId = new Map(CALCULATORS.map((c) => [c.id, c]));

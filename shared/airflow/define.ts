@@ -26,8 +26,14 @@ export interface InputSpec {
   units?: readonly string[];
   /** Override of the kind's form default units. */
   defaultUnit?: UnitPair;
+  /** Limits of the value; for a list input, of each reading. */
   min?: Bound;
   max?: Bound;
+  /**
+   * The input takes a list of readings of one quantity in one unit (`{ values, unit }`), at
+   * least `min` and at most `max` of them. Read it with `ctx.values(name)`.
+   */
+  list?: { min: number; max: number };
   /** The worked example, mostly in US units; lessons, the API and the US form use it. */
   example?: InputValue;
   /**
@@ -55,14 +61,20 @@ export interface OutputSpec {
 export interface ComputeContext<I extends string> {
   /** The SI value (a percent as a fraction), or the input's default when it was left empty. */
   value(name: I): number;
+  /** The readings of a list input in SI (a fresh array), or its default when it was left empty. */
+  values(name: I): number[];
   /** The chosen option (or its default). */
   option(name: I): string;
   /** Whether the user supplied the input. */
   has(name: I): boolean;
   /** The input as the user gave it, as LaTeX (`2\,\mathrm{in}`). */
   given(name: I): string;
+  /** The unit the user gave the input in, as sent (`cfm`); '' when it was left empty. */
+  unit(name: I): string;
   step(title: string, formula: string, substituted: string, result: string): void;
   warn(field: string, message: string): void;
+  /** Adds a plain-language conclusion or caveat (plain text, no LaTeX) to the result's notes. */
+  note(text: string): void;
   /** Refuses the request with an error naming the field (stops the computation). */
   fail(field: string, message: string): never;
 }
@@ -117,6 +129,7 @@ export function toSummary(def: CalculatorDefinition): CalculatorSummary {
       ...(numeric ? { defaultUnit: spec.defaultUnit ?? DEFAULT_UNITS[spec.kind as QuantityKind] } : {}),
       ...(spec.min === undefined ? {} : { min: spec.min }),
       ...(spec.max === undefined ? {} : { max: spec.max }),
+      ...(spec.list === undefined ? {} : { list: { ...spec.list } }),
       ...(spec.example === undefined ? {} : { example: spec.example }),
       ...(spec.exampleSi === undefined ? {} : { exampleSi: spec.exampleSi }),
       ...(spec.default === undefined ? {} : { default: spec.default }),

@@ -29,10 +29,18 @@ describe('catalogue', () => {
     'fuel-flow': { inputs: ['airMassFlow', 'airFuelRatio', 'lambda', 'stoichiometricRatio'], outputs: ['fuelMassFlow'] },
     'gas-compression': { inputs: ['pressure1', 'volume1', 'temperature1', 'pressure2', 'temperature2'], outputs: ['volume2'] },
     'sensor-correction': { inputs: [], outputs: [] },
-    uncertainty: { inputs: [], outputs: [] },
+    uncertainty: { inputs: ['repeatCount', 'repeatScatter'], outputs: ['coverageFactor'] },
+    'compare-tests': {
+      inputs: ['readingsA', 'readingsB', 'setup', 'ambientUncertainty', 'calibrationUncertainty'],
+      outputs: ['meanA', 'meanB', 'stdDevA', 'stdDevB', 'difference', 'differenceStandardUncertainty', 'effectiveDegreesOfFreedom', 'coverageFactor', 'differenceExpandedUncertainty'],
+    },
+    'port-velocity': { inputs: ['testPressure', 'density', 'flow', 'sectionArea', 'velocityPressure', 'peakFlow', 'targetVelocity'], outputs: ['idealVelocity', 'meanVelocity', 'velocityRatio', 'effectiveArea', 'probeVelocity', 'minimumArea'] },
+    'discharge-coefficient': { inputs: ['flow', 'testPressure', 'density', 'referenceArea', 'valveDiameter', 'lift', 'throatDiameter'], outputs: ['area', 'idealVelocity', 'dischargeCoefficient', 'liftOverDiameter', 'effectiveArea'] },
+    'power-potential': { inputs: ['airMassFlow', 'airFuelRatio', 'bsfc', 'headFlow', 'cylinders', 'headFlowTestPressure'], outputs: ['power', 'headFlowPower'] },
+    'speed-density': { inputs: ['manifoldPressure', 'intakeAirTemperature', 'volumetricEfficiency', 'displacement', 'engineSpeed', 'benchFlow', 'benchDensity', 'sensorReading'], outputs: ['manifoldDensity', 'massFlow', 'benchMassFlow', 'sensorDifference'] },
   };
 
-  it('lists exactly the fourteen calculators of the brief, with the contract names', () => {
+  it('lists exactly the nineteen calculators of the brief and issue 9, with the contract names', () => {
     const list = listCalculators();
     expect(list.map((c) => c.id).sort()).toEqual(Object.keys(contract).sort());
     for (const c of list) {

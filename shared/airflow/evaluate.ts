@@ -4,7 +4,7 @@
  */
 import type { CalculatorDefinition, ComputeContext, InputSpec } from './define';
 import { outputSIUnit } from './define';
-import { lines, num, qty, unitTex } from './latex';
+import { lines, listLinesTex, num, qty, unitTex, wrapLines } from './latex';
 import { type Given, isRecord, kindName, readInput, unitList } from './read-input';
 import type {
   Bound,
@@ -22,7 +22,7 @@ interface CompiledInput {
   spec: InputSpec;
   minSI?: number;
   maxSI?: number;
-  defaultValue?: number | string;
+  defaultValue?: number | string | readonly number[];
 }
 
 class Refusal extends Error {
@@ -40,7 +40,7 @@ function compile(def: CalculatorDefinition): CompiledInput[] {
     const kind = spec.kind === 'option' ? undefined : spec.kind;
     const boundSI = (b: Bound | undefined) =>
       b === undefined || kind === undefined ? undefined : toSI(b.value, parseUnit(b.unit) as LinearUnit, kind);
-    let defaultValue: number | string | undefined;
+    let defaultValue: number | string | readonly number[] | undefined;
     if (spec.default !== undefined) {
       const parsed = readInput(spec, spec.default);
       if (typeof parsed === 'string' && spec.kind !== 'option') throw new Error(`${def.id}.${name}: bad default`);
@@ -52,15 +52,26 @@ function compile(def: CalculatorDefinition): CompiledInput[] {
   return compiled;
 }
 
-function checkBounds(c: CompiledInput, si: number): string | undefined {
+/** A value (or each reading of a list) outside the input's min/max, as a message naming it. */
+function checkBounds(c: CompiledInput, value: number | string | readonly number[]): string | undefined {
+  if (typeof value === 'string') return undefined;
+  if (typeof value === 'number') return checkBound(c, value, c.spec.label);
+  for (const [i, reading] of value.entries()) {
+    const message = checkBound(c, reading, `${c.spec.label}: reading ${i + 1}`);
+    if (message !== undefined) return message;
+  }
+  return undefined;
+}
+
+function checkBound(c: CompiledInput, si: number, what: string): string | undefined {
   const { spec, minSI, maxSI } = c;
   const below = minSI !== undefined && (spec.min?.inclusive ? si < minSI : si <= minSI);
   const above = maxSI !== undefined && (spec.max?.inclusive ? si > maxSI : si >= maxSI);
   if (!below && !above) return undefined;
   const b = (below ? spec.min : spec.max) as Bound;
   const limit = `${b.value}${b.unit === '' ? '' : ` ${b.unit}`}`;
-  if (below) return `${spec.label} must be ${b.inclusive ? 'at least' : 'above'} ${limit}.`;
-  return `${spec.label} must be ${b.inclusive ? 'at most' : 'below'} ${limit}.`;
+  if (below) return `${what} must be ${b.inclusive ? 'at least' : 'above'} ${limit}.`;
+  return `${what} must be ${b.inclusive ? 'at most' : 'below'} ${limit}.`;
 }
 
 /** Runs one calculator definition on a request. */
@@ -84,7 +95,7 @@ export function evaluateDefinition(def: CalculatorDefinition, request: Calculati
       errors.push({ field: c.name, message: read });
       continue;
     }
-    const outOfRange = typeof read.value === 'number' ? checkBounds(c, read.value) : undefined;
+    const outOfRange = checkBounds(c, read.value);
     if (outOfRange !== undefined) errors.push({ field: c.name, message: outOfRange });
     else given.set(c.name, read);
   }
@@ -106,9 +117,10 @@ export function evaluateDefinition(def: CalculatorDefinition, request: Calculati
 
   const steps: Step[] = [];
   const warnings: FieldError[] = [];
+  const notes: string[] = [];
   const used = new Set<string>();
   const byName = new Map(compiled.map((c) => [c.name, c]));
-  const lookup = (name: string): number | string => {
+  const lookup = (name: string): number | string | readonly number[] => {
     used.add(name);
     const g = given.get(name);
     if (g !== undefined) return g.value;
@@ -122,11 +134,18 @@ export function evaluateDefinition(def: CalculatorDefinition, request: Calculati
       if (typeof v !== 'number') throw new Error(`${def.id}: input "${name}" is not numeric`);
       return v;
     },
+    values: (name) => {
+      const v = lookup(name);
+      if (typeof v === 'number' || typeof v === 'string') throw new Error(`${def.id}: input "${name}" is not a list`);
+      return [...v];
+    },
     option: (name) => String(lookup(name)),
     has: (name) => given.has(name),
     given: (name) => given.get(name)?.tex ?? '',
+    unit: (name) => given.get(name)?.unit ?? '',
     step: (title, formula, substituted, result) => void steps.push({ title, formula, substituted, result }),
     warn: (field, message) => void warnings.push({ field, message }),
+    note: (text) => void notes.push(text),
     fail: (field, message) => {
       throw new Refusal(field, message);
     },
@@ -163,7 +182,7 @@ export function evaluateDefinition(def: CalculatorDefinition, request: Calculati
     const [f = [], s = [], r = []] = conversions;
     steps.push({ title: 'Express the results in the units asked for', formula: lines(f), substituted: lines(s), result: lines(r) });
   }
-  return { ok: true, result: { id: def.id, outputs, steps, warnings } };
+  return { ok: true, result: { id: def.id, outputs, steps, warnings, notes } };
 }
 
 function readOutputUnits(def: CalculatorDefinition, raw: unknown, errors: FieldError[]): Map<string, LinearUnit> {
@@ -211,7 +230,7 @@ function inputConversionStep(compiled: CompiledInput[], given: Map<string, Given
   const result: string[] = [];
   for (const c of compiled) {
     const g = given.get(c.name);
-    if (g?.conversion === undefined || c.spec.kind === 'option' || typeof g.value !== 'number') continue;
+    if (g?.conversion === undefined || c.spec.kind === 'option' || typeof g.value === 'string') continue;
     const kind = c.spec.kind;
     const { unit, raw } = g.conversion;
     const sym = c.spec.symbol;
@@ -219,14 +238,18 @@ function inputConversionStep(compiled: CompiledInput[], given: Map<string, Given
     // One line per conversion factor: two inputs in the same unit share it.
     const factor = unitFactorTex(unit, kind);
     if (!formula.includes(factor)) formula.push(factor);
+    // A list of readings reads (a,\ b,\ c) and wraps after six readings.
+    const rawLines = typeof raw === 'number' ? [num(raw, 8)] : listLinesTex(raw, 8);
+    const siLines = typeof g.value === 'number' ? [num(g.value)] : listLinesTex(g.value);
     if (kind !== 'temperatureDifference' && unit.offset !== 0) {
       const shift = num(unit.offset / unit.scale, 6);
       const scale = unit.scale === 1 ? '' : ` \\times ${num(unit.scale, 7)}`;
-      substituted.push(`${sym} = (${num(raw)} + ${shift})${scale}\\,${unitTex(siText)}`);
+      substituted.push(...wrapLines(`${sym} = (`, rawLines, ` + ${shift})${scale}\\,${unitTex(siText)}`));
     } else {
-      substituted.push(`${sym} = ${num(raw, 8)} \\times ${qty(unit.scale, siText, 7)}`);
+      substituted.push(...wrapLines(`${sym} = `, rawLines, ` \\times ${qty(unit.scale, siText, 7)}`));
     }
-    result.push(`${sym} = ${qty(g.value, siText)}`);
+    const siUnit = unitTex(siText);
+    result.push(...wrapLines(`${sym} = `, siLines, siUnit === '' ? '' : `\\,${siUnit}`));
   }
   if (formula.length === 0) return undefined;
   return { title: 'Convert the inputs to SI units', formula: lines(formula), substituted: lines(substituted), result: lines(result) };

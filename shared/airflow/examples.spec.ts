@@ -1,4 +1,4 @@
-import { convert, evaluate, exampleRequest, isUsCustomary, listCalculators, SI_UNIT } from './index';
+import { convert, evaluate, exampleRequest, isListValue, isUsCustomary, listCalculators, SI_UNIT } from './index';
 import type { CalculationRequest, CalculatorSummary, InputSummary, InputValue, QuantityKind } from './index';
 
 /** What the SI form fills in: each input's SI example over its example, one member per one-of group. */
@@ -22,9 +22,11 @@ function isRound(value: number): boolean {
   return Number(value.toPrecision(3)) === value || (Number.isInteger(value) && Math.abs(value) < 10_000);
 }
 
+/** The example in SI; for a list of readings, their mean. */
 function inSI(input: InputSummary, example: InputValue): number | undefined {
   if (typeof example !== 'object') return undefined;
-  return convert(example.value, example.unit, SI_UNIT[input.kind as QuantityKind]);
+  const value = isListValue(example) ? example.values.reduce((sum, v) => sum + v, 0) / example.values.length : example.value;
+  return convert(value, example.unit, SI_UNIT[input.kind as QuantityKind]);
 }
 
 const summaries = listCalculators();
@@ -39,9 +41,9 @@ describe('every SI worked example', () => {
   it.each(summaries.map((s) => [s.id, s] as const))('%s reads in round SI figures', (_id, summary) => {
     for (const [name, value] of Object.entries(siExampleRequest(summary).inputs)) {
       if (typeof value === 'string') continue;
-      const quantity = typeof value === 'number' ? { value, unit: '' } : value;
+      const quantity = typeof value === 'number' ? { values: [value], unit: '' } : isListValue(value) ? value : { values: [value.value], unit: value.unit };
       expect({ name, unit: quantity.unit, usCustomary: isUsCustomary(quantity.unit) }).toEqual({ name, unit: quantity.unit, usCustomary: false });
-      expect({ name, value: quantity.value, round: isRound(quantity.value) }).toEqual({ name, value: quantity.value, round: true });
+      for (const reading of quantity.values) expect({ name, value: reading, round: isRound(reading) }).toEqual({ name, value: reading, round: true });
     }
   });
 

@@ -10,6 +10,7 @@ export type {
   InputKind,
   InputSummary,
   InputValue,
+  ListValue,
   OptionChoice,
   OutputSummary,
   QuantityKind,
@@ -18,6 +19,7 @@ export type {
   Topic,
   UnitPair,
 } from './types';
+export { isListValue } from './read-input';
 export { describeCalculator, evaluate, exampleRequest, listCalculators, withExampleDefaults } from './catalogue';
 export { convert, DEFAULT_UNITS, isUnitOf, isUsCustomary, SI_UNIT, UNITS_BY_KIND } from './units';
 export { STANDARD_CONDITIONS, type StandardCondition } from './standard-conditions';

@@ -84,3 +84,27 @@ export function paren(tex: string): string {
 export function lines(items: readonly string[]): string {
   return items.length === 1 ? (items[0] ?? '') : `\\begin{aligned}${items.map((l) => `&${l}`).join(' \\\\ ')}\\end{aligned}`;
 }
+
+/**
+ * A list of numbers as LaTeX lines for `lines()`: `(a,\ b,\ c,` … `x,\ y)`, at most `perLine`
+ * numbers a line, so thirty readings do not run off the screen.
+ */
+export function listLinesTex(values: readonly number[], sig = 5, perLine = 6): string[] {
+  const chunks: string[] = [];
+  for (let i = 0; i < values.length; i += perLine) {
+    chunks.push(values.slice(i, i + perLine).map((v) => num(v, sig)).join(',\\ '));
+  }
+  return chunks.map((chunk, i) => `${i === 0 ? '(' : ''}${chunk}${i < chunks.length - 1 ? ',' : ')'}`);
+}
+
+/** A list of readings on one line: `(248.8,\ 250,\ 251.2)\,\mathrm{cfm}`. */
+export function listTex(values: readonly number[], unit: string, sig = 5): string {
+  const u = unitTex(unit);
+  const list = `(${values.map((v) => num(v, sig)).join(',\\ ')})`;
+  return u === '' ? list : `${list}\\,${u}`;
+}
+
+/** Lines `prefix(a,\ b, …` … `y)suffix`, the continuation lines indented. */
+export function wrapLines(prefix: string, body: readonly string[], suffix: string): string[] {
+  return body.map((line, i) => `${i === 0 ? prefix : '\\quad '}${line}${i === body.length - 1 ? suffix : ''}`);
+}

@@ -33,12 +33,19 @@ export type Topic =
   | 'Forced induction'
   | 'Sensors and uncertainty';
 
+/** Readings of one quantity in one unit, for an input that takes a list (e.g. repeat runs). */
+export interface ListValue {
+  values: number[];
+  unit: string;
+}
+
 /**
- * An input as sent: `{ value, unit }` for a quantity; a bare number only for dimensionless
- * inputs (kinds 'ratio' and 'percent'), read in the input's default unit (`%` for percent
- * inputs, a plain number for ratios); a string only for option inputs.
+ * An input as sent: `{ value, unit }` for a quantity; `{ values, unit }` for an input that takes
+ * a list of readings (`InputSummary.list`); a bare number only for dimensionless inputs (kinds
+ * 'ratio' and 'percent'), read in the input's default unit (`%` for percent inputs, a plain
+ * number for ratios); a string only for option inputs.
  */
-export type InputValue = { value: number; unit: string } | number | string;
+export type InputValue = { value: number; unit: string } | ListValue | number | string;
 
 export interface CalculationRequest {
   inputs: Record<string, InputValue>;
@@ -70,6 +77,11 @@ export interface CalculationResult {
   outputs: Record<string, QuantityOut>;
   steps: Step[];
   warnings: FieldError[];
+  /**
+   * Plain-language conclusions and caveats shown with the outputs, e.g. "A gain of 4.0 ± 2.7 cfm
+   * is shown (95 % confidence)." Plain text, no LaTeX; always present, often empty.
+   */
+  notes: string[];
 }
 
 export type CalculationOutcome =
@@ -108,6 +120,11 @@ export interface InputSummary {
   defaultUnit?: UnitPair;
   min?: Bound;
   max?: Bound;
+  /**
+   * Present when the input takes a list of readings (`{ values, unit }`): how many it needs.
+   * `min`/`max` then bound each reading.
+   */
+  list?: { min: number; max: number };
   /** Value for "reset to example", and what lessons and the API's example request use. */
   example?: InputValue;
   /**

@@ -1,4 +1,5 @@
 import * as fc from 'fast-check';
+import katex from 'katex';
 import { evaluate } from '../index';
 import { out, q, run } from './run-calculator.spec-support';
 
@@ -93,5 +94,63 @@ describe('uncertainty', () => {
       }),
       { numRuns: 30 },
     );
+  });
+});
+
+describe('uncertainty with repeat runs (Type A, t factor)', () => {
+  const massFlow = { quantity: 'mass-flow', convention: 'standard', volumeFlow: q(0.2, 'm^3/s'), volumeFlowUncertainty: q(0.004, 'm^3/s'), density: q(1.2, 'kg/m^3'), densityUncertainty: q(0.006, 'kg/m^3') };
+
+  it('adds s/√n with ν = n − 1 and uses t at ν_eff, by hand (GUM 4.2, G.4.2, Table G.2)', () => {
+    const r = run('uncertainty', { ...massFlow, repeatCount: 3, repeatScatter: q(0.01, 'm^3/s') });
+    // by hand: Type A u_A(Q) = 0.01/√3 = 0.005 774 m³/s, times c_Q = ρ = 1.2 → 0.006 928 kg/s
+    const typeA = (1.2 * 0.01) / Math.sqrt(3);
+    const uc = Math.sqrt((1.2 * 0.004) ** 2 + (0.2 * 0.006) ** 2 + typeA ** 2);
+    expect(out(r, 'massFlowStandardUncertainty')).toBeCloseTo(uc, 9);
+    // GUM eq. G.2b by hand: ν_eff = u_c⁴ / (u_A⁴/2) = 4.56 → 4; GUM Table G.2: t_95(4) = 2.78
+    expect(uc ** 4 / (typeA ** 4 / 2)).toBeCloseTo(4.56, 2);
+    expect(out(r, 'coverageFactor')).toBeCloseTo(2.78, 2);
+    expect(out(r, 'massFlowExpandedUncertainty')).toBeCloseTo(out(r, 'coverageFactor') * uc, 9);
+  });
+
+  it('three repeat runs alone give t = 4.30, not k = 2 (course review 1, E5)', () => {
+    const r = run('uncertainty', { quantity: 'mass-flow', convention: 'standard', volumeFlow: q(182.2, 'cfm'), density: q(1.2, 'kg/m^3'), repeatCount: 3, repeatScatter: q(1.2, 'cfm') });
+    // course review 1 E5 and GUM Table G.2: n = 3 gives ν = 2 and t_95(2) = 4.30
+    expect(out(r, 'coverageFactor')).toBeCloseTo(4.3, 2);
+    // by hand: U = 4.303 × 1.2/√3 = 2.98 cfm of 182.2 cfm = 1.64 %
+    expect(out(r, 'relativeExpandedUncertainty')).toBeCloseTo((100 * out(r, 'coverageFactor') * 1.2) / Math.sqrt(3) / 182.2, 9);
+    expect(out(r, 'relativeExpandedUncertainty')).toBeCloseTo(1.64, 2);
+  });
+
+  it('keeps k = 2 without repeat runs, and says that repeat scatter belongs in the budget', () => {
+    const r = run('uncertainty', massFlow);
+    expect(out(r, 'coverageFactor')).toBe(2);
+    expect(r.notes.join(' ')).toMatch(/square root of density/);
+    expect(r.notes.join(' ')).toMatch(/always belongs in the budget/);
+    const density = run('uncertainty', { quantity: 'air-density', temperature: q(20, 'degC'), pressure: q(1013, 'hPa') });
+    expect(out(density, 'coverageFactor')).toBe(2);
+    expect(density.notes).toEqual([]);
+  });
+
+  it('needs both the count and the scatter, a whole count of 2 or more', () => {
+    const fields = (extra: Record<string, unknown>) => {
+      const outcome = evaluate('uncertainty', { inputs: { ...massFlow, ...extra } as never });
+      return outcome.ok ? [] : outcome.errors.map((e) => e.field);
+    };
+    expect(fields({ repeatCount: 3 })).toEqual(['repeatScatter']);
+    expect(fields({ repeatScatter: q(1, 'cfm') })).toEqual(['repeatCount']);
+    expect(fields({ repeatCount: 2.5, repeatScatter: q(1, 'cfm') })).toEqual(['repeatCount']);
+    expect(fields({ repeatCount: 1, repeatScatter: q(1, 'cfm') })).toEqual(['repeatCount']);
+  });
+
+  it('leaves repeat runs out of an air-density result, with a warning', () => {
+    const r = run('uncertainty', { quantity: 'air-density', temperature: q(20, 'degC'), pressure: q(1013, 'hPa'), repeatCount: 3, repeatScatter: q(1, 'cfm') });
+    expect(r.warnings.map((w) => w.field)).toEqual(['repeatCount']);
+    expect(out(r, 'coverageFactor')).toBe(2);
+  });
+
+  it('writes steps KaTeX can typeset', () => {
+    const r = run('uncertainty', { ...massFlow, repeatCount: 5, repeatScatter: q(0.002, 'm^3/s') });
+    expect(r.steps.map((s) => s.title)).toEqual(expect.arrayContaining(['Repeatability of the volume flow (Type A, GUM 4.2)', 'Effective degrees of freedom (Welch–Satterthwaite, GUM G.4.2)']));
+    for (const step of r.steps) for (const tex of [step.formula, step.substituted, step.result]) expect(() => katex.renderToString(tex, { throwOnError: true })).not.toThrow();
   });
 });
