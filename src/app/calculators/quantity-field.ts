@@ -36,11 +36,9 @@ import { unitLabel } from './unit-labels';
         [attr.inputmode]="listHint() ? null : 'decimal'"
         [formControl]="controls().controls.text"
       />
-      @if (listHint(); as hint) {
-        <mat-hint>{{ input().help }} {{ hint }}</mat-hint>
+      <mat-hint>{{ input().help }} {{ listHint() ?? '' }}</mat-hint>
+      @if (listHint()) {
         <mat-hint align="end">{{ typedCount() === 1 ? '1 reading' : typedCount() + ' readings' }}</mat-hint>
-      } @else {
-        <mat-hint>{{ input().help }}</mat-hint>
       }
       <mat-error>{{ error() }}</mat-error>
     </mat-form-field>
