@@ -165,6 +165,6 @@ function injectorSizing(ctx: ComputeContext<SizingInput>, fuel: number) {
     'Q_{rated} = \\frac{\\dot m_{rated}}{\\rho_{fuel}}',
     `Q_{rated} = \\frac{${qty(rated, 'kg/s')}}{${qty(rho, 'kg/m^3')}}`,
     `Q_{rated} = ${qty(volume, 'm^3/s')} = ${qty(convert(volume, 'm^3/s', 'cc/min'), 'cc/min', 4)}`);
-  ctx.note(`The fuel needed is not the injector size. Each injector must deliver the fuel needed per injector; choose injectors rated at least the smallest rating shown, which leaves a ${Math.round(duty * 100)} % duty-cycle margin${bothPressures ? ' and allows for the pressure in use' : ''}.`);
+  ctx.note(`The fuel needed is not the injector size. Choose injectors rated at least the smallest rating shown${bothPressures ? ' (at their rating pressure)' : ''}. Then they stay open no more than ${Math.round(duty * 100)} % of the time at full load.`);
   return { fuelPerInjector: perInjector, minimumInjectorRating: rated, minimumInjectorRatingVolume: volume };
 }
