@@ -1,8 +1,20 @@
 import type { InputValue } from '../../shared/airflow';
 
-/** Reads an author's value: `200 cfm` → quantity, `0.62` → bare number, `cipm2007` → option. */
+const NUMBER = /^-?\d+(?:\.\d+)?(?:[eE][+-]?\d+)?$/;
+
+/**
+ * Reads an author's value: `200 cfm` → quantity, `0.62` → bare number, `cipm2007` → option,
+ * `248.8 250.0 251.2 cfm` (numbers separated by spaces, then one unit) → a list of readings.
+ */
 export function parsePresetValue(text: string): InputValue {
   const trimmed = text.trim();
+  const words = trimmed.split(/\s+/);
+  let count = 0;
+  while (count < words.length && NUMBER.test(words[count]!)) count++;
+  if (count >= 2) {
+    const values = words.slice(0, count).map(Number);
+    return { values, unit: words.slice(count).join(' ') };
+  }
   const match = /^(-?\d+(?:\.\d+)?(?:[eE][+-]?\d+)?)\s*(.*)$/.exec(trimmed);
   if (!match) return trimmed;
   const value = Number(match[1]);

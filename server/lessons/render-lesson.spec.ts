@@ -1,3 +1,4 @@
+import { parsePresetValue } from './preset-values';
 import { renderLesson } from './render-lesson';
 
 const frontMatter = `---
@@ -84,5 +85,42 @@ describe('renderLesson', () => {
     const withLab = frontMatter.replace('---\n', '---\nlabObjectives:\n  - Lock out the bench supply\n');
     expect(renderLesson(`${withLab}\nText $x$.\n`, 'lab.md').meta.labObjectives).toEqual(['Lock out the bench supply']);
     expect(renderLesson(`${frontMatter}\nText $x$.\n`, 'plain.md').meta.labObjectives).toEqual([]);
+  });
+
+  it('reads a list of readings in presets and result lines: numbers separated by spaces, then one unit', () => {
+    const lesson = renderLesson(
+      `${frontMatter}\n:::example Two sets of runs\nText.\n\n=> compare-tests | readingsA=248.8 250.0 251.2 cfm, readingsB=252.8 254.0 255.2 cfm | differenceExpandedUncertainty = 2.7 cfm\n:::\n\n:::calculator compare-tests\nreadingsA: 248.8 250.0 251.2 cfm\nreadingsB: 252.8 254.0 255.2 L/s\nsetup: different-days\n:::\n`,
+      'lists.md',
+    );
+    expect(lesson.results).toEqual([
+      expect.objectContaining({
+        calculator: 'compare-tests',
+        inputs: { readingsA: { values: [248.8, 250, 251.2], unit: 'cfm' }, readingsB: { values: [252.8, 254, 255.2], unit: 'cfm' } },
+        output: 'differenceExpandedUncertainty',
+        value: 2.7,
+        unit: 'cfm',
+      }),
+    ]);
+    expect(lesson.embeds[0]?.inputs).toEqual({
+      readingsA: { values: [248.8, 250, 251.2], unit: 'cfm' },
+      readingsB: { values: [252.8, 254, 255.2], unit: 'L/s' },
+      setup: 'different-days',
+    });
+  });
+});
+
+describe('parsePresetValue', () => {
+  it.each([
+    ['200 cfm', { value: 200, unit: 'cfm' }],
+    ['0.62', 0.62],
+    ['-3 kPa', { value: -3, unit: 'kPa' }],
+    ['1.5e3 Pa', { value: 1500, unit: 'Pa' }],
+    ['6000 1/min', { value: 6000, unit: '1/min' }],
+    ['cipm2007', 'cipm2007'],
+    ['248.8 250.0 251.2 cfm', { values: [248.8, 250, 251.2], unit: 'cfm' }],
+    ['  -1 2e1   3.5 m^3/h ', { values: [-1, 20, 3.5], unit: 'm^3/h' }],
+    ['1 2 3', { values: [1, 2, 3], unit: '' }],
+  ])('reads "%s"', (text, expected) => {
+    expect(parsePresetValue(text)).toEqual(expected);
   });
 });

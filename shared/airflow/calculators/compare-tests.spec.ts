@@ -1,4 +1,5 @@
 import * as fc from 'fast-check';
+import katex from 'katex';
 import { describeCalculator, evaluate, exampleRequest } from '../index';
 import type { CalculationOutcome, InputValue } from '../index';
 import { out, run } from './run-calculator.spec-support';
@@ -225,5 +226,6 @@ describe('list inputs', () => {
   it('wrap a long list in the conversion step', () => {
     const r = compare({ readingsA: list([248, 249, 250, 251, 252, 250, 249, 251]), readingsB: list(PORTED) });
     expect(r.steps[0]?.substituted).toContain('x_{A} = (248,\\ 249,\\ 250,\\ 251,\\ 252,\\ 250, \\\\ &\\quad 249,\\ 251) \\times');
+    for (const step of r.steps) for (const tex of [step.formula, step.substituted, step.result]) expect(() => katex.renderToString(tex, { throwOnError: true })).not.toThrow();
   });
 });
