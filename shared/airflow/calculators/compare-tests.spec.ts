@@ -38,7 +38,7 @@ describe('compare-tests', () => {
   it('adds each day’s ambient correction on different days: a larger U', () => {
     const sameDay = compare({ readingsA: list(STOCK), readingsB: list(PORTED), setup: 'same-day' });
     const days = compare({ readingsA: list(STOCK), readingsB: list(PORTED), setup: 'different-days' });
-    // lesson 8's density budget (u(ρ)/ρ = 0.00163/1.1837), halved for the √ correction: 0.07 % of each mean
+    // lesson 9's density budget (comparing-tests) (u(ρ)/ρ = 0.00163/1.1837), halved for the √ correction: 0.07 % of each mean
     const uAmbA = 0.0007 * 250;
     const uAmbB = 0.0007 * 254;
     const u = Math.sqrt(2 * (1.2 ** 2 / 3) + uAmbA ** 2 + uAmbB ** 2);
@@ -52,13 +52,13 @@ describe('compare-tests', () => {
 
   it('adds both calibrations on different benches: a 4 cfm gain is then not shown', () => {
     const r = compare({ readingsA: list(STOCK), readingsB: list(PORTED), setup: 'different-benches' });
-    // lesson 8: a ±2 % calibration read as rectangular, 2 %/√3 = 1.15 % of each mean; 0.07 % ambient
+    // lesson 9 (comparing-tests): a ±2 % calibration read as rectangular, 2 %/√3 = 1.15 % of each mean; 0.07 % ambient
     const u = Math.sqrt(2 * (1.2 ** 2 / 3) + (0.0007 * 250) ** 2 + (0.0007 * 254) ** 2 + (0.0115 * 250) ** 2 + (0.0115 * 254) ** 2);
     expect(out(r, 'differenceStandardUncertainty')).toBeCloseTo(u, 9);
     expect(r.notes[0]).toMatch(/^A difference of 4\.0 ± \d\.\d cfm is not shown: it is smaller than its uncertainty\.$/);
   });
 
-  it('uses the relative uncertainties given instead of lesson 8’s', () => {
+  it('uses the relative uncertainties given instead of lesson 9’s', () => {
     const r = compare({ readingsA: list(STOCK), readingsB: list(PORTED), setup: 'different-days', ambientUncertainty: { value: 1, unit: '%' } });
     // by hand: 1 % of each mean added in quadrature
     expect(out(r, 'differenceStandardUncertainty')).toBeCloseTo(Math.sqrt(0.96 + 2.5 ** 2 + 2.54 ** 2), 9);

@@ -17,12 +17,13 @@ import { type BudgetTerm, mean, sampleStandardDeviation, welchSatterthwaite } fr
 import { convert } from '../units';
 
 /*
- * The defaults come from lesson 8's budget (content/lessons/08-sensors.md, "Uncertainty: an
- * honest ±"). Ambient: air density 1.1837 kg/m³ with a standard uncertainty of 0.00163 kg/m³
- * (±0.5 K, ±1.5 hPa, ±3 % RH read as rectangular), 0.138 % relative. The bench-reading correction
- * Q·√(ρ/ρ_std) of lesson 5 has a relative sensitivity of ½ to ρ, so one day's ambient correction
- * carries ½ × 0.138 % ≈ 0.07 % of the flow. Calibration: lesson 8's bench is good to ±2 % of
- * reading, read as rectangular: 2 %/√3 = 1.15 %.
+ * The defaults come from the course's uncertainty budget (lesson 9,
+ * content/lessons/09-comparing-tests.md; lesson 8's before the split). Ambient: air density
+ * 1.1837 kg/m³ with a standard uncertainty of 0.00163 kg/m³ (±0.5 K, ±1.5 hPa, ±3 % RH read as
+ * rectangular), 0.138 % relative. The bench-reading correction Q·√(ρ/ρ_std) of lesson 5 has a
+ * relative sensitivity of ½ to ρ, so one day's ambient correction carries ½ × 0.138 % ≈ 0.07 %
+ * of the flow. Calibration: the lesson's bench is good to ±2 % of reading, read as rectangular:
+ * 2 %/√3 = 1.15 %.
  */
 export const AMBIENT_RELATIVE_UNCERTAINTY_PERCENT = 0.07;
 export const CALIBRATION_RELATIVE_UNCERTAINTY_PERCENT = 1.15;
@@ -78,9 +79,9 @@ export const compareTests = defineCalculator({
       help: 'Which parts of the measurement the two tests share. Shared parts cancel from the difference.',
     },
     ambientUncertainty: relative('Ambient-correction uncertainty (one day)', 'w_{amb}', AMBIENT_RELATIVE_UNCERTAINTY_PERCENT,
-      "Relative standard uncertainty of one day's correction to standard conditions, from the ambient sensors. Empty: 0.07 %, from lesson 8's density budget. Used for different days or benches."),
+      "Relative standard uncertainty of one day's correction to standard conditions, from the ambient sensors. Empty: 0.07 %, from the density budget of lesson 9. Used for different days or benches."),
     calibrationUncertainty: relative('Bench calibration uncertainty', 'w_{cal}', CALIBRATION_RELATIVE_UNCERTAINTY_PERCENT,
-      "Relative standard uncertainty of one bench's calibration. Empty: 1.15 %, a ±2 % calibration read as rectangular (2 %/√3), as in lesson 8. Used for different benches only."),
+      "Relative standard uncertainty of one bench's calibration. Empty: 1.15 %, a ±2 % calibration read as rectangular (2 %/√3), as in lesson 9. Used for different benches only."),
   },
   outputs: {
     meanA: { label: 'Mean of A', symbol: '\\bar x_{A}', kind: 'volumeFlow', us: 'cfm' },
