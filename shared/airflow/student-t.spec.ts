@@ -43,6 +43,9 @@ describe('tFactor95: Student t at 95 % (two-sided)', () => {
     expect(wholeDegreesOfFreedom(3.9999999999999996)).toBe(4);
     expect(wholeDegreesOfFreedom(4.53)).toBe(4);
     expect(tFactor95(3.9999999999999996)).toBe(tFactor95(4));
+    // readings whose scatters differ by a unit conversion's rounding: still 4, no jump to t(3)
+    expect(wholeDegreesOfFreedom(3.99999)).toBe(4);
+    expect(wholeDegreesOfFreedom(3.98)).toBe(3);
   });
 
   it('refuses fewer than one degree of freedom', () => {

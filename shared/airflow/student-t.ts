@@ -85,12 +85,15 @@ export function tFactor95(nu: number): number {
 }
 
 /**
- * ν truncated to the next lower integer (GUM G.4.1), except that a value a rounding error below a
- * whole number counts as that number (Welch–Satterthwaite gives 3.999 999 999 for an exact 4).
+ * ν truncated to the next lower integer (GUM G.4.1), except that a value within 0.01 below a whole
+ * number counts as that number. Welch–Satterthwaite gives 3.999 999 999 for an exact 4, and
+ * 3.9999 for readings whose scatters differ only by a rounding (the same readings converted to
+ * other units); truncating those to 3 would jump t from 2.78 to 3.18. ν_eff is itself only an
+ * estimate (GUM G.4.2 note), so 0.01 changes nothing a reading could show.
  */
 export function wholeDegreesOfFreedom(nu: number): number {
   const nearest = Math.round(nu);
-  return Math.abs(nu - nearest) <= 1e-9 * Math.max(1, nu) ? nearest : Math.floor(nu);
+  return nearest - nu >= 0 && nearest - nu <= 0.01 ? nearest : Math.floor(nu);
 }
 
 /** The root of an increasing function on [low, high] by bisection, to about 1e-13 relative. */
