@@ -151,3 +151,32 @@ describe('standard-flow', () => {
     expect(out(back, 'actualFlow')).toBeCloseTo(100, 9);
   });
 });
+
+// Course review 1, finding E2 (the reviewer's own derivation from the orifice equation, ISO 5167-1
+// with ε = 1): a bench's pressure ratio does not change with the weather, so a figure worked out
+// with a fixed (January) calibration constant is already referred to calibration-day air. Lesson 5
+// states the rule; these are its numbers: January 61 °F, 30.18 inHg, 30 % RH; July 80 °F,
+// 29.62 inHg, 68 % RH; US standard air.
+describe('E2: a calibration constant from another day (lesson 5)', () => {
+  const january = { temperature: q(61, 'degF'), pressure: q(30.18, 'inHg'), relativeHumidity: q(30, '%') };
+  const july = { temperature: q(80, 'degF'), pressure: q(29.62, 'inHg'), relativeHumidity: q(68, '%') };
+  const toStandard = (flow: number, air: typeof july) =>
+    out(run('standard-flow', { flow: q(flow, 'cfm'), ...air, standard: 'us-standard-air', correction: 'bench-reading', direction: 'to-standard' }, { standardFlow: 'cfm' }), 'standardFlow');
+  const density = (air: typeof july) => out(run('air-density', air, { density: 'lb/ft^3' }), 'density');
+
+  it('the January constant on the July day gives 246.3 cfm for the part that flows 254.0 cfm of July air', () => {
+    // ratio method with density (review E2): Q = Q_cal √((Δp_o/Δp_cal)(ρ_cal/ρ_o)); the raw ratio is the same
+    expect(246.3 * Math.sqrt(density(january) / density(july))).toBeCloseTo(254.0, 1);
+  });
+
+  it('done right, with calibration-day air, both days give 249.2 cfm', () => {
+    expect(toStandard(254.0, july)).toBeCloseTo(249.2, 1);
+    expect(toStandard(246.3, january)).toBeCloseTo(249.2, 1);
+  });
+
+  it('corrected twice, with the July air, it reads 241.6 cfm: 3 % low', () => {
+    const twice = toStandard(246.3, july);
+    expect(twice).toBeCloseTo(241.6, 1);
+    expect(1 - twice / 249.2).toBeCloseTo(0.03, 2);
+  });
+});

@@ -66,9 +66,9 @@ export const compareTests = defineCalculator({
     'Whether a change in flow between two sets of repeat runs (before and after porting) is shown: means, standard deviations, the difference with its uncertainty, Welch–Satterthwaite degrees of freedom, the Student t factor and a 95 % expanded uncertainty (GUM §5.2 and Annex G). Components both tests share cancel from the difference.',
   inputs: {
     readingsA: readings('Readings A (before, or stock)', 'x_{A}', [248.8, 250.0, 251.2], [117, 118, 119],
-      'The flow of each run of the first part or setup, at one test pressure and corrected the same way. Refit the part between runs. 2 to 30 readings.'),
+      'The flow of each run of the first part or setup, at one test pressure and corrected the same way. Refit the part between runs.'),
     readingsB: readings('Readings B (after, or ported)', 'x_{B}', [252.8, 254.0, 255.2], [120, 121, 122],
-      'The flow of each run of the second part or setup, tested the same way as A. 2 to 30 readings.'),
+      'The flow of each run of the second part or setup, tested the same way as A.'),
     setup: {
       label: 'How the two tests were made', symbol: '', kind: 'option', optional: true, default: 'same-day', example: 'same-day',
       options: [

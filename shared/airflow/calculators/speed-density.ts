@@ -64,7 +64,7 @@ export const speedDensity = defineCalculator({
       kind: 'volumeFlow',
       optional: true,
       min: bound(0, 'm^3/s', false),
-      help: 'A bench reading of the same air path, after any sensor correction, to turn into mass flow. Needs the bench air density.',
+      help: 'The flow the bench measured through the sensor and its housing, to turn into mass flow: the measured figure, not one corrected for the sensor’s own restriction (that air never passed the sensor). Needs the bench air density.',
     },
     benchDensity: {
       label: 'Bench air density',
