@@ -78,7 +78,7 @@ export const compareTests = defineCalculator({
       ],
       help: 'Which parts of the measurement the two tests share. Shared parts cancel from the difference.',
     },
-    ambientUncertainty: relative('Ambient-correction uncertainty (one day)', 'w_{amb}', AMBIENT_RELATIVE_UNCERTAINTY_PERCENT,
+    ambientUncertainty: relative('Ambient uncertainty, one day', 'w_{amb}', AMBIENT_RELATIVE_UNCERTAINTY_PERCENT,
       "Relative standard uncertainty of one day's correction to standard conditions, from the ambient sensors. Empty: 0.07 %, from the density budget of lesson 9. Used for different days or benches."),
     calibrationUncertainty: relative('Bench calibration uncertainty', 'w_{cal}', CALIBRATION_RELATIVE_UNCERTAINTY_PERCENT,
       "Relative standard uncertainty of one bench's calibration. Empty: 1.15 %, a ±2 % calibration read as rectangular (2 %/√3), as in lesson 9. Used for different benches only."),

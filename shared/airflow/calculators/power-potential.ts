@@ -31,7 +31,7 @@ export const powerPotential = defineCalculator({
   title: 'Power potential from air flow',
   topic: 'Mass flow',
   summary:
-    'Roughly how much power an air flow can support: the fuel the air can burn divided by the brake specific fuel consumption (P = ṁ_air/(AFR·BSFC)), with an optional check by the shop rule of thumb from a cylinder head\'s flow at 28 inH2O. A potential, not a prediction.',
+    'Roughly how much power an air flow can support: the fuel the air can burn divided by the brake specific fuel consumption (P = ṁ ÷ (AFR × BSFC)), with an optional check by the shop rule of thumb from a cylinder head\'s flow at 28 inH2O. A potential, not a prediction.',
   inputs: {
     airMassFlow: {
       label: 'Air mass flow',
@@ -65,7 +65,7 @@ export const powerPotential = defineCalculator({
       help: 'Fuel burned per unit of work at the crank. Empty: 0.50 lb/(hp·h) (about 300 g/(kW·h)), a good full-load gasoline figure (shop common practice). A lower figure means a more efficient engine.',
     },
     headFlow: {
-      label: 'Head flow per port (optional check)',
+      label: 'Head flow per port, for the check',
       symbol: 'Q_{28}',
       kind: 'volumeFlow',
       optional: true,

@@ -59,7 +59,7 @@ export const speedDensity = defineCalculator({
       help: 'Crankshaft speed. Four-stroke: one fill every two revolutions.',
     },
     benchFlow: {
-      label: 'Bench flow (optional check)',
+      label: 'Bench flow, for the check',
       symbol: 'Q_{b}',
       kind: 'volumeFlow',
       optional: true,
