@@ -1,7 +1,7 @@
 import { ABOVE_ZERO_K, ABOVE_ZERO_PA, bound, type ComputeContext, defineCalculator } from '../define';
 import { compressorOutletTemperature, correctedMassFlow, GAMMA_AIR, intercoolerOutletTemperature, isentropicOutletTemperature } from '../compression';
 import { num, qty } from '../latex';
-import { absolutePressure, airTemperature, BAROMETER_UNITS, efficiency } from './common-inputs';
+import { absolutePressure, airTemperature, BAROMETER_UNITS, efficiency, massFlow } from './common-inputs';
 import { CHARGE_AIR_HAZARD } from './hazards';
 
 export const boost = defineCalculator({
@@ -55,15 +55,11 @@ export const boost = defineCalculator({
       help: 'Pressure lost across the intercooler and pipes. Empty: neglected (the compressor outlet is then at boost pressure).',
     },
     engineMassFlow: {
-      label: 'Engine air mass flow (for the compressor map)',
-      symbol: '\\dot m',
-      kind: 'massFlow',
-      min: bound(0, 'kg/s', false),
-      optional: true,
       // About what L7's 2.0 L engine takes under boost: 100 g/s unboosted (L6) times a density ratio near 1.5–1.9.
-      example: { value: 20, unit: 'lb/min' },
+      ...massFlow('Engine air mass flow (for the compressor map)', '\\dot m', { value: 20, unit: 'lb/min' },
+        'The real mass of air the engine takes, e.g. from the engine-demand or mass-flow calculator. Give it to find where the engine sits on a compressor map.'),
       exampleSi: { value: 150, unit: 'g/s' },
-      help: 'The real mass of air the engine takes, e.g. from the engine-demand or mass-flow calculator. Give it to find where the engine sits on a compressor map.',
+      optional: true,
     },
     mapReferencePressure: {
       label: 'Map reference pressure (absolute)',

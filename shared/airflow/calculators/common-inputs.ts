@@ -43,3 +43,39 @@ export function density(label: string, example: InputValue, help: string): Input
 export function efficiency(label: string, symbol: string, example: InputValue, help: string): InputSpec {
   return { label, symbol, kind: 'percent', min: bound(0, '%', false), max: bound(100, '%'), example, help };
 }
+
+/** A volume flow (a bench reading, a demand), above zero. */
+export function volumeFlow(label: string, symbol: string, example: InputValue | undefined, help: string): InputSpec {
+  return { label, symbol, kind: 'volumeFlow', min: bound(0, 'm^3/s', false), ...(example === undefined ? {} : { example }), help };
+}
+
+/** A mass flow of air or fuel, above zero. */
+export function massFlow(label: string, symbol: string, example: InputValue | undefined, help: string): InputSpec {
+  return { label, symbol, kind: 'massFlow', min: bound(0, 'kg/s', false), ...(example === undefined ? {} : { example }), help };
+}
+
+/** An engine's swept volume, all cylinders, in litres or cubic inches. */
+export function displacement(example: InputValue): InputSpec {
+  return {
+    label: 'Displacement (all cylinders)',
+    symbol: 'V_{d}',
+    kind: 'volume',
+    defaultUnit: { si: 'L', us: 'in^3' },
+    min: bound(0, 'm^3', false),
+    example,
+    help: 'Total swept volume of the engine.',
+  };
+}
+
+/** Crankshaft speed, above zero and below a sanity limit no engine reaches. */
+export function engineSpeed(help: string): InputSpec {
+  return {
+    label: 'Engine speed',
+    symbol: 'N',
+    kind: 'speed',
+    min: bound(0, 'rpm', false),
+    max: bound(100000, 'rpm'),
+    example: { value: 6000, unit: 'rpm' },
+    help,
+  };
+}

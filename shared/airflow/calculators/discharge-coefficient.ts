@@ -10,10 +10,11 @@
  * discharge coefficient C against the flow coefficient).
  */
 import { bound, defineCalculator } from '../define';
-import { circleArea, idealVelocity, INCOMPRESSIBLE_LIMIT_PA } from '../flow';
+import { circleArea } from '../flow';
 import { num, qty } from '../latex';
-import { density, pressureDrop } from './common-inputs';
+import { density, pressureDrop, volumeFlow } from './common-inputs';
 import { BENCH_SUCTION_HAZARD } from './hazards';
+import { effectiveAreaStep, idealVelocityStep } from './jet-steps';
 
 /** Above this C_d the figures are more likely wrong than a generous reference area (our choice). */
 const IMPLAUSIBLE_CD = 1.5;
@@ -31,13 +32,9 @@ export const dischargeCoefficient = defineCalculator({
   hazard: BENCH_SUCTION_HAZARD,
   inputs: {
     flow: {
-      label: 'Bench flow',
-      symbol: 'Q',
-      kind: 'volumeFlow',
-      min: bound(0, 'm^3/s', false),
-      example: { value: 160, unit: 'cfm' },
+      ...volumeFlow('Bench flow', 'Q', { value: 160, unit: 'cfm' },
+        'The flow the bench reads for the valve and port at this lift and test pressure.'),
       exampleSi: { value: 75, unit: 'L/s' },
-      help: 'The flow the bench reads for the valve and port at this lift and test pressure.',
     },
     testPressure: {
       ...pressureDrop('Test pressure', '\\Delta p', { value: 28, unit: 'inH2O' },
@@ -124,15 +121,8 @@ export const dischargeCoefficient = defineCalculator({
       ctx.warn('throatDiameter', 'The throat diameter is only used with the throat reference.');
     }
 
-    const vi = idealVelocity(dp, rho);
-    ctx.step('Ideal velocity at the test pressure', 'v_{i} = \\sqrt{\\frac{2\\,\\Delta p}{\\rho}}',
-      `v_{i} = \\sqrt{\\frac{2 \\times ${qty(dp, 'Pa')}}{${qty(rho, 'kg/m^3')}}}`, `v_{i} = ${qty(vi, 'm/s')}`);
-    if (dp > INCOMPRESSIBLE_LIMIT_PA) {
-      ctx.warn('testPressure', 'Above about 15 kPa (60 inH2O) the air is squeezed noticeably; this incompressible coefficient loses accuracy.');
-    }
-    const effectiveArea = q / vi;
-    ctx.step('Effective area: the flow divided by the ideal velocity', 'A_{e} = \\frac{Q}{v_{i}}',
-      `A_{e} = \\frac{${qty(q, 'm^3/s')}}{${qty(vi, 'm/s')}}`, `A_{e} = ${qty(effectiveArea, 'm^2')}`);
+    const vi = idealVelocityStep(ctx, dp, rho);
+    const effectiveArea = effectiveAreaStep(ctx, q, vi);
     const cd = effectiveArea / area;
     ctx.step('Discharge coefficient: effective area over reference area',
       'C_{d} = \\frac{Q}{A_{ref}\\sqrt{2\\,\\Delta p/\\rho}} = \\frac{A_{e}}{A_{ref}}',

@@ -1,7 +1,7 @@
 import { bound, defineCalculator } from '../define';
 import { engineAirDemand } from '../flow';
 import { num, qty } from '../latex';
-import { density } from './common-inputs';
+import { density, displacement, engineSpeed } from './common-inputs';
 
 /** Above this, a VE referred to manifold density is suspect: boost is probably counted twice (review E4). */
 const MANIFOLD_VE_WARNING = 1.2;
@@ -13,24 +13,8 @@ export const engineDemand = defineCalculator({
   summary:
     'Air an engine draws from its displacement, speed and volumetric efficiency: a four-stroke fills its displacement once every two revolutions, a two-stroke once every revolution. Gives volume flow and, with the density the volumetric efficiency is referred to (manifold or ambient air), mass flow.',
   inputs: {
-    displacement: {
-      label: 'Displacement (all cylinders)',
-      symbol: 'V_{d}',
-      kind: 'volume',
-      defaultUnit: { si: 'L', us: 'in^3' },
-      min: bound(0, 'm^3', false),
-      example: { value: 5.0, unit: 'L' },
-      help: 'Total swept volume of the engine.',
-    },
-    speed: {
-      label: 'Engine speed',
-      symbol: 'N',
-      kind: 'speed',
-      min: bound(0, 'rpm', false),
-      max: bound(100000, 'rpm'),
-      example: { value: 6000, unit: 'rpm' },
-      help: 'Crankshaft speed.',
-    },
+    displacement: displacement({ value: 5.0, unit: 'L' }),
+    speed: engineSpeed('Crankshaft speed.'),
     volumetricEfficiency: {
       label: 'Volumetric efficiency',
       symbol: '\\eta_{v}',

@@ -1,6 +1,7 @@
 import { bound, type ComputeContext, defineCalculator, type InputSpec } from '../define';
 import { num, qty } from '../latex';
 import { convert } from '../units';
+import { massFlow } from './common-inputs';
 import { FUEL_HAZARD } from './hazards';
 
 /** Stoichiometric air–fuel ratio of gasoline taken as 14.7 — shop common practice. */
@@ -19,13 +20,9 @@ export const fuelFlow = defineCalculator({
   hazard: FUEL_HAZARD,
   inputs: {
     airMassFlow: {
-      label: 'Air mass flow',
-      symbol: '\\dot m_{air}',
-      kind: 'massFlow',
-      min: bound(0, 'kg/s', false),
-      example: { value: 35, unit: 'lb/min' },
+      ...massFlow('Air mass flow', '\\dot m_{air}', { value: 35, unit: 'lb/min' },
+        'From the mass-flow or engine-demand calculators, or a mass-air sensor.'),
       exampleSi: { value: 250, unit: 'g/s' },
-      help: 'From the mass-flow or engine-demand calculators, or a mass-air sensor.',
     },
     airFuelRatio: ratio('Air–fuel ratio (by mass)', 'AFR', 'Mass of air per mass of fuel, e.g. 12.5 for a rich full-load gasoline mixture.', { group: 'mixture', example: 12.5 }),
     lambda: ratio('Lambda', '\\lambda', 'Actual AFR over stoichiometric AFR: 1 is stoichiometric, below 1 rich, above 1 lean.', { group: 'mixture', max: bound(10, ''), example: 0.85 }),

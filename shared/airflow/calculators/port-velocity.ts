@@ -5,14 +5,16 @@
  * - effective area A_e = Q / v_i, the hole a perfect nozzle would need to pass the same flow;
  * - a pitot-static probe: v = √(2 q / ρ) from its velocity pressure q;
  * - a first port size from demand: A_min = Q_peak / v_target.
- * The air in the port is thinner than the room air by up to Δp/p (about 7 % at 28 inH2O): the
- * room density is used throughout, as the bench's own figures are referred to it.
+ * The air at the port's narrowest section is thinner than the room air, by about Δp/(κp) (some
+ * 5 % at 28 inH2O, isentropic): the room density is used throughout, as the bench's own figures
+ * are referred to it.
  */
 import { bound, defineCalculator } from '../define';
-import { idealVelocity, INCOMPRESSIBLE_LIMIT_PA } from '../flow';
+import { idealVelocity } from '../flow';
 import { num, qty } from '../latex';
-import { density, pressureDrop } from './common-inputs';
+import { density, pressureDrop, volumeFlow } from './common-inputs';
 import { BENCH_SUCTION_HAZARD } from './hazards';
+import { effectiveAreaStep, idealVelocityStep } from './jet-steps';
 
 export const portVelocity = defineCalculator({
   id: 'port-velocity',
@@ -31,14 +33,10 @@ export const portVelocity = defineCalculator({
     density: density('Air density', { value: 1.2, unit: 'kg/m^3' },
       'Density of the room air the bench draws in; the air-density calculator gives it. The air in the port is a few percent thinner; the room figure is near enough here.'),
     flow: {
-      label: 'Bench flow',
-      symbol: 'Q',
-      kind: 'volumeFlow',
-      optional: true,
-      min: bound(0, 'm^3/s', false),
-      example: { value: 160, unit: 'cfm' },
+      ...volumeFlow('Bench flow', 'Q', { value: 160, unit: 'cfm' },
+        'The flow the bench reads at this test pressure. Gives the effective area, and with a section area the mean speed.'),
       exampleSi: { value: 75, unit: 'L/s' },
-      help: 'The flow the bench reads at this test pressure. Gives the effective area, and with a section area the mean speed.',
+      optional: true,
     },
     sectionArea: {
       label: 'Section area',
@@ -57,14 +55,10 @@ export const portVelocity = defineCalculator({
       optional: true,
     },
     peakFlow: {
-      label: 'Peak flow the port must pass',
-      symbol: 'Q_{peak}',
-      kind: 'volumeFlow',
-      optional: true,
-      min: bound(0, 'm^3/s', false),
-      example: { value: 160, unit: 'cfm' },
+      ...volumeFlow('Peak flow the port must pass', 'Q_{peak}', { value: 160, unit: 'cfm' },
+        'For sizing: one cylinder\'s demand while its valve is open, as in the volume-flow lesson (the mean demand of one cylinder × 720 / intake duration in degrees).'),
       exampleSi: { value: 75, unit: 'L/s' },
-      help: 'For sizing: one cylinder\'s demand while its valve is open, as in the volume-flow lesson (the mean demand of one cylinder × 720 / intake duration in degrees).',
+      optional: true,
     },
     targetVelocity: {
       label: 'Target mean speed',
@@ -88,24 +82,12 @@ export const portVelocity = defineCalculator({
   compute(ctx) {
     const dp = ctx.value('testPressure');
     const rho = ctx.value('density');
-    const vi = idealVelocity(dp, rho);
-    ctx.step('Ideal velocity: the test pressure turned fully into speed (Bernoulli)',
-      'v_{i} = \\sqrt{\\frac{2\\,\\Delta p}{\\rho}}',
-      `v_{i} = \\sqrt{\\frac{2 \\times ${qty(dp, 'Pa')}}{${qty(rho, 'kg/m^3')}}}`,
-      `v_{i} = ${qty(vi, 'm/s')}`);
-    if (dp > INCOMPRESSIBLE_LIMIT_PA) {
-      ctx.warn('testPressure', 'Above about 15 kPa (60 inH2O) the air is squeezed noticeably; these incompressible speeds lose accuracy.');
-    }
+    const vi = idealVelocityStep(ctx, dp, rho);
     const result: { idealVelocity: number; meanVelocity?: number; velocityRatio?: number; effectiveArea?: number; probeVelocity?: number; minimumArea?: number } = { idealVelocity: vi };
 
     if (ctx.has('flow')) {
       const q = ctx.value('flow');
-      const ae = q / vi;
-      ctx.step('Effective area: the flow divided by the ideal velocity',
-        'A_{e} = \\frac{Q}{v_{i}}',
-        `A_{e} = \\frac{${qty(q, 'm^3/s')}}{${qty(vi, 'm/s')}}`,
-        `A_{e} = ${qty(ae, 'm^2')}`);
-      result.effectiveArea = ae;
+      result.effectiveArea = effectiveAreaStep(ctx, q, vi);
       if (ctx.has('sectionArea')) {
         const a = ctx.value('sectionArea');
         const vm = q / a;

@@ -12,7 +12,7 @@ import { ABOVE_ZERO_PA, bound, defineCalculator } from '../define';
 import { scaleFlowToPressureDrop } from '../flow';
 import { num, qty } from '../latex';
 import { convert } from '../units';
-import { TEST_PRESSURE_UNITS } from './common-inputs';
+import { massFlow, TEST_PRESSURE_UNITS, volumeFlow } from './common-inputs';
 
 /** The head-flow rule: 0.257 hp per cfm at 28 inH2O, per cylinder (shop folklore, from memory). */
 export const HP_PER_CFM_AT_28 = 0.257;
@@ -34,13 +34,9 @@ export const powerPotential = defineCalculator({
     'Roughly how much power an air flow can support: the fuel the air can burn divided by the brake specific fuel consumption (P = ṁ ÷ (AFR × BSFC)), with an optional check by the shop rule of thumb from a cylinder head\'s flow at 28 inH2O. A potential, not a prediction.',
   inputs: {
     airMassFlow: {
-      label: 'Air mass flow',
-      symbol: '\\dot m_{air}',
-      kind: 'massFlow',
-      min: bound(0, 'kg/s', false),
-      example: { value: 16.4, unit: 'lb/min' },
+      ...massFlow('Air mass flow', '\\dot m_{air}', { value: 16.4, unit: 'lb/min' },
+        'The air the whole engine takes in at full load, from the engine-demand or mass-flow calculators, or a mass-air sensor.'),
       exampleSi: { value: 125, unit: 'g/s' },
-      help: 'The air the whole engine takes in at full load, from the engine-demand or mass-flow calculators, or a mass-air sensor.',
     },
     airFuelRatio: {
       label: 'Air–fuel ratio (by mass)',
@@ -65,14 +61,10 @@ export const powerPotential = defineCalculator({
       help: 'Fuel burned per unit of work at the crank. Empty: 0.50 lb/(hp·h) (about 300 g/(kW·h)), a good full-load gasoline figure (shop common practice). A lower figure means a more efficient engine.',
     },
     headFlow: {
-      label: 'Head flow per port, for the check',
-      symbol: 'Q_{28}',
-      kind: 'volumeFlow',
-      optional: true,
-      min: bound(0, 'm^3/s', false),
-      example: { value: 160, unit: 'cfm' },
+      ...volumeFlow('Head flow per port, for the check', 'Q_{28}', { value: 160, unit: 'cfm' },
+        'Best intake flow of one port on the bench, at 28 inH2O. Gives the shop rule-of-thumb figure for comparison.'),
       exampleSi: { value: 75, unit: 'L/s' },
-      help: 'Best intake flow of one port on the bench, at 28 inH2O. Gives the shop rule-of-thumb figure for comparison.',
+      optional: true,
     },
     cylinders: {
       label: 'Number of cylinders',

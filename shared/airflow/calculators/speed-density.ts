@@ -9,7 +9,7 @@ import { bound, defineCalculator } from '../define';
 import { engineAirDemand } from '../flow';
 import { num, qty } from '../latex';
 import { densityIdealDry, R_DRY_AIR } from '../moist-air';
-import { absolutePressure, airTemperature } from './common-inputs';
+import { absolutePressure, airTemperature, displacement, engineSpeed, massFlow, volumeFlow } from './common-inputs';
 import { CHARGE_AIR_HAZARD } from './hazards';
 
 /** Above this VE (referred to manifold density) a figure is more likely a slip (our warning limit). */
@@ -40,31 +40,12 @@ export const speedDensity = defineCalculator({
       example: { value: 90, unit: '%' },
       help: 'How full the cylinders get compared with their swept volume at the manifold\'s density. Boost is already in the manifold pressure, so this stays near an unboosted engine\'s figure.',
     },
-    displacement: {
-      label: 'Displacement (all cylinders)',
-      symbol: 'V_{d}',
-      kind: 'volume',
-      defaultUnit: { si: 'L', us: 'in^3' },
-      min: bound(0, 'm^3', false),
-      example: { value: 2.0, unit: 'L' },
-      help: 'Total swept volume of the engine.',
-    },
-    engineSpeed: {
-      label: 'Engine speed',
-      symbol: 'N',
-      kind: 'speed',
-      min: bound(0, 'rpm', false),
-      max: bound(100000, 'rpm'),
-      example: { value: 6000, unit: 'rpm' },
-      help: 'Crankshaft speed. Four-stroke: one fill every two revolutions.',
-    },
+    displacement: displacement({ value: 2.0, unit: 'L' }),
+    engineSpeed: engineSpeed('Crankshaft speed. Four-stroke: one fill every two revolutions.'),
     benchFlow: {
-      label: 'Bench flow, for the check',
-      symbol: 'Q_{b}',
-      kind: 'volumeFlow',
+      ...volumeFlow('Bench flow, for the check', 'Q_{b}', undefined,
+        'The flow the bench measured through the sensor and its housing, to turn into mass flow: the measured figure, not one corrected for the sensor’s own restriction (that air never passed the sensor). Needs the bench air density.'),
       optional: true,
-      min: bound(0, 'm^3/s', false),
-      help: 'The flow the bench measured through the sensor and its housing, to turn into mass flow: the measured figure, not one corrected for the sensor’s own restriction (that air never passed the sensor). Needs the bench air density.',
     },
     benchDensity: {
       label: 'Bench air density',
@@ -75,14 +56,10 @@ export const speedDensity = defineCalculator({
       help: 'Density of the room air the bench flow is referred to; the air-density calculator gives it.',
     },
     sensorReading: {
-      label: 'Mass-air sensor reading',
-      symbol: '\\dot m_{s}',
-      kind: 'massFlow',
-      optional: true,
+      ...massFlow('Mass-air sensor reading', '\\dot m_{s}', { value: 195, unit: 'g/s' },
+        'What the mass-air sensor reports (scan tools show g/s). Compared with the bench figure when a bench flow is given, otherwise with the speed-density figure.'),
       defaultUnit: { si: 'g/s', us: 'g/s' },
-      min: bound(0, 'kg/s', false),
-      example: { value: 195, unit: 'g/s' },
-      help: 'What the mass-air sensor reports (scan tools show g/s). Compared with the bench figure when a bench flow is given, otherwise with the speed-density figure.',
+      optional: true,
     },
   },
   outputs: {
