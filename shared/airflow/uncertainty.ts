@@ -67,14 +67,15 @@ export interface BudgetTerm {
 
 /**
  * Effective degrees of freedom by the Welch–Satterthwaite formula (GUM G.4.2, eq. G.2b):
- * ν_eff = u_c⁴ / Σ (c_i u_i)⁴/ν_i. Terms with ν = ∞ (Type B) add nothing to the sum; with no
- * finite term, or a zero sum, ν_eff = ∞.
+ * ν_eff = u_c⁴ / Σ (c_i u_i)⁴/ν_i, worked as 1 / Σ (c_i u_i / u_c)⁴/ν_i so that no fourth power
+ * of a tiny or huge SI figure underflows or overflows. Terms with ν = ∞ (Type B) add nothing to
+ * the sum; with no finite term, or a zero sum, ν_eff = ∞.
  */
 export function welchSatterthwaite(terms: readonly BudgetTerm[]): number {
-  const combinedSquared = terms.reduce((sum, t) => sum + t.contribution ** 2, 0);
+  const combined = Math.sqrt(terms.reduce((sum, t) => sum + t.contribution ** 2, 0));
   const denominator = terms.reduce(
-    (sum, t) => (Number.isFinite(t.degreesOfFreedom) ? sum + t.contribution ** 4 / t.degreesOfFreedom : sum),
+    (sum, t) => (Number.isFinite(t.degreesOfFreedom) ? sum + (t.contribution / combined) ** 4 / t.degreesOfFreedom : sum),
     0,
   );
-  return denominator > 0 ? combinedSquared ** 2 / denominator : Number.POSITIVE_INFINITY;
+  return denominator > 0 ? 1 / denominator : Number.POSITIVE_INFINITY;
 }

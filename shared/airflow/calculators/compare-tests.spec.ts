@@ -139,6 +139,16 @@ describe('compare-tests', () => {
     expect(r.steps[10]?.result).toBe('\\text{a gain is shown}');
   });
 
+  it('gives the same degrees of freedom whatever the scale of the readings, and refuses absurd ones by name', () => {
+    // E1's readings give ν_eff = 4 (two sets of three, equal s); u⁴ of 1e90 overflows, of 1e-90 underflows.
+    for (const scale of [1e-90, 1, 1e90]) {
+      const r = run('compare-tests', { readingsA: list(STOCK.map((v) => v * scale), 'm^3/s'), readingsB: list(PORTED.map((v) => v * scale), 'm^3/s') });
+      expect(out(r, 'effectiveDegreesOfFreedom')).toBeCloseTo(4, 9);
+    }
+    const outcome = evaluate('compare-tests', { inputs: { readingsA: list([1e300, 1.5e300], 'm^3/s'), readingsB: list(PORTED) } });
+    expect(errorsOf(outcome)).toEqual([{ field: 'readingsA', message: expect.stringMatching(/^Readings A are too large/) }]);
+  });
+
   it('swapping A and B flips the sign of the difference and keeps U (property)', () => {
     fc.assert(
       fc.property(readingSet(), readingSet(), fc.constantFrom('same-day', 'different-days', 'different-benches'), (a, b, setup) => {

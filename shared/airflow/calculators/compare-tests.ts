@@ -98,6 +98,10 @@ export const compareTests = defineCalculator({
   compute(ctx) {
     const sets = [describeSet('A', ctx.values('readingsA')), describeSet('B', ctx.values('readingsB'))] as const;
     const [a, b] = sets;
+    for (const s of sets) {
+      // Only absurd figures (beyond about 1e150 m³/s) overflow the sum of squares.
+      if (!Number.isFinite(s.s)) ctx.fail(`readings${s.name}`, `Readings ${s.name} are too large to work with. Check the readings and their unit.`);
+    }
     const si = (x: number, sig = 5) => qty(x, SI, sig);
     const per = (f: (s: SetStats) => string) => lines(sets.map(f));
     ctx.step('Mean of each set of readings', '\\bar x = \\frac{1}{n}\\sum_{i=1}^{n} x_i',
