@@ -1,22 +1,7 @@
-import { describeCalculator, type CalculatorSummary } from '../../../shared/airflow';
+import { calculator, readingsCalculator } from './calculator-summaries.spec-support';
 import { blankState, calculate, convertToSystem, exampleState, outputUnitOf, presetState, toRequest } from './form-state';
-import { parseTyped } from './typed-numbers';
-
-function calculator(id: string): CalculatorSummary {
-  const summary = describeCalculator(id);
-  if (summary === undefined) throw new Error(`no calculator ${id}`);
-  return summary;
-}
 
 describe('form state', () => {
-  it('reads typed numbers, and refuses what is not one', () => {
-    expect(parseTyped(' 1013.25 ')).toBe(1013.25);
-    expect(parseTyped('101 325')).toBe(101325);
-    expect(parseTyped('−40')).toBe(-40);
-    expect(parseTyped('1.5e3')).toBe(1500);
-    for (const junk of ['', '1,5', '0x10', 'Infinity', '1.2.3', 'abc']) expect(parseTyped(junk)).toBeUndefined();
-  });
-
   it('converts typed values with the US/SI switch and back', () => {
     const summary = calculator('air-density');
     const us = convertToSystem(summary, exampleState(summary, 'si'), 'us');
@@ -113,32 +98,6 @@ describe('shop units and lesson presets', () => {
   });
 });
 
-/** A calculator with one list input, as the catalogue describes one (InputSummary.list). */
-function readingsCalculator(): CalculatorSummary {
-  return {
-    id: 'readings-only',
-    title: 'Readings',
-    topic: 'Sensors and uncertainty',
-    summary: '',
-    inputs: [
-      {
-        name: 'readings',
-        label: 'Readings',
-        symbol: 'Q',
-        kind: 'volumeFlow',
-        help: 'Repeat readings of one flow.',
-        optional: false,
-        units: ['m^3/s', 'L/s', 'cfm'],
-        defaultUnit: { si: 'L/s', us: 'cfm' },
-        list: { min: 2, max: 30 },
-        // Readings for the worked example of course-review-1 E1: n = 3 refits, s = 1.2 cfm.
-        example: { values: [248.8, 250.0, 251.2], unit: 'cfm' },
-      },
-    ],
-    groups: [],
-    outputs: [],
-  };
-}
 
 describe('an input that takes a list of readings', () => {
   it('opens on the example readings, one text with spaces between them', () => {

@@ -1,12 +1,7 @@
-import { describeCalculator, listCalculators, type CalculatorSummary } from '../../../shared/airflow';
+import { listCalculators } from '../../../shared/airflow';
+import { calculator, readingsCalculator } from './calculator-summaries.spec-support';
 import { blankState, exampleState } from './form-state';
 import { decodeShareLink, encodeShareLink, unitToken } from './share-link';
-
-function calculator(id: string): CalculatorSummary {
-  const summary = describeCalculator(id);
-  if (summary === undefined) throw new Error(`no calculator ${id}`);
-  return summary;
-}
 
 describe('share links', () => {
   it('spell units without characters that need percent-encoding', () => {
@@ -120,29 +115,3 @@ describe('share links', () => {
   });
 });
 
-/** A calculator with one list input, as the catalogue describes one (InputSummary.list). */
-function readingsCalculator(): CalculatorSummary {
-  return {
-    id: 'readings-only',
-    title: 'Readings',
-    topic: 'Sensors and uncertainty',
-    summary: '',
-    inputs: [
-      {
-        name: 'readings',
-        label: 'Readings',
-        symbol: 'Q',
-        kind: 'volumeFlow',
-        help: 'Repeat readings of one flow.',
-        optional: false,
-        units: ['m^3/s', 'L/s', 'cfm'],
-        defaultUnit: { si: 'L/s', us: 'cfm' },
-        list: { min: 2, max: 30 },
-        // Readings for the worked example of course-review-1 E1: n = 3 refits, s = 1.2 cfm.
-        example: { values: [248.8, 250.0, 251.2], unit: 'cfm' },
-      },
-    ],
-    groups: [],
-    outputs: [],
-  };
-}

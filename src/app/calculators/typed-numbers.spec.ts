@@ -1,4 +1,14 @@
-import { countReadings, parseReadings, readingsHint, readingsProblem, splitReadings } from './typed-numbers';
+import { countReadings, parseReadings, parseTyped, readingsHint, readingsProblem, splitReadings } from './typed-numbers';
+
+describe('a typed number', () => {
+  it('is read with digit-group spaces and a typographic minus, and junk is refused', () => {
+    expect(parseTyped(' 1013.25 ')).toBe(1013.25);
+    expect(parseTyped('101 325')).toBe(101325);
+    expect(parseTyped('−40')).toBe(-40);
+    expect(parseTyped('1.5e3')).toBe(1500);
+    for (const junk of ['', '1,5', '0x10', 'Infinity', '1.2.3', 'abc']) expect(parseTyped(junk)).toBeUndefined();
+  });
+});
 
 describe('readings typed into one field', () => {
   it('are separated by spaces, semicolons, or a comma and a space', () => {
