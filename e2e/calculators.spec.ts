@@ -1,5 +1,7 @@
-import AxeBuilder from '@axe-core/playwright';
-import { expect, test, type Locator, type Page } from '@playwright/test';
+import { expect, test } from '@playwright/test';
+
+import { chooseUnit, expectNoBlockingViolations, numberField, results, resultValue, unitPicker } from './calculator-page';
+import { watchErrors } from './page-errors';
 
 // Expected figures are the engine's own (CIPM-2007 moist-air density, shared/airflow), as the
 // page must show them; the engine's tests check those against the published references.
@@ -9,39 +11,6 @@ test.use({ locale: 'en-GB' });
 
 const airDensity = 'Air density from temperature, pressure and humidity';
 const topics = ['Pressure', 'Flow', 'Air density', 'Mass flow', 'Forced induction', 'Sensors and uncertainty'];
-
-function numberField(page: Page, label: string | RegExp): Locator {
-  return page.getByRole('textbox', { name: label, exact: typeof label === 'string' });
-}
-
-function unitPicker(page: Page, label: string): Locator {
-  return page.getByRole('combobox', { name: `Unit for ${label}`, exact: true });
-}
-
-async function chooseUnit(page: Page, label: string, unit: string): Promise<void> {
-  await unitPicker(page, label).click();
-  await page.getByRole('option', { name: unit, exact: true }).click();
-  await expect(unitPicker(page, label)).toContainText(unit);
-}
-
-/** Console errors and uncaught page errors, collected for the whole test. */
-function watchErrors(page: Page): string[] {
-  const errors: string[] = [];
-  page.on('console', (message) => {
-    if (message.type() === 'error') errors.push(message.text());
-  });
-  page.on('pageerror', (error) => errors.push(error.message));
-  return errors;
-}
-
-function results(page: Page): Locator {
-  return page.getByRole('region', { name: 'Results' });
-}
-
-/** The figure in the results row of an output (its first data cell). */
-function resultValue(page: Page, output: string): Locator {
-  return results(page).getByRole('row', { name: new RegExp(`^${output}\\b`) }).getByRole('cell').first();
-}
 
 test('a visitor works out air density, copies the link, and the link opens the same calculation', async ({ page, context, baseURL }) => {
   test.slow(); // the list, a calculation in US units, then the shared link in a second page
@@ -167,9 +136,7 @@ for (const theme of ['Light', 'Dark']) {
     await page.getByRole('button', { name: /theme/i }).click();
     await page.getByRole('menuitemradio', { name: theme }).click();
     await expect(page.getByRole('menu')).toBeHidden();
-    const scan = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze();
-    const blocking = scan.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
-    expect(blocking.map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).join(', ')})`)).toEqual([]);
+    await expectNoBlockingViolations(page);
   });
 }
 

@@ -1,5 +1,17 @@
-import AxeBuilder from '@axe-core/playwright';
-import { expect, test, type Locator, type Page } from '@playwright/test';
+import { expect, test } from '@playwright/test';
+
+import {
+  expectNoBlockingViolations,
+  labelStart,
+  numberField,
+  results,
+  resultNotes,
+  resultValue,
+  shareLink,
+  typedInputs,
+  unitPicker,
+} from './calculator-page';
+import { watchErrors } from './page-errors';
 
 // The calculators added for course-review-1 (G1–G4, G6). Expected figures are the engine's own
 // (shared/airflow), as the page must show them; the engine's tests check those against their
@@ -7,71 +19,6 @@ import { expect, test, type Locator, type Page } from '@playwright/test';
 
 // A British browser, so the pages open in SI as the figures below expect (Playwright's default, en-US, opens in US units).
 test.use({ locale: 'en-GB' });
-
-/** Text as a regular expression that matches it literally. */
-function literal(text: string): string {
-  return text.replace(/[.*+?^${}()|[\]\\]/g, '\\$&');
-}
-
-/** A field by the start of its label ("Bench flow" finds "Bench flow (optional)" too). */
-function numberField(page: Page, label: string): Locator {
-  return page.getByRole('textbox', { name: new RegExp(`^${literal(label)}`) });
-}
-
-function unitPicker(page: Page, label: string): Locator {
-  return page.getByRole('combobox', { name: `Unit for ${label}`, exact: true });
-}
-
-/** Console errors and uncaught page errors, collected for the whole test. */
-function watchErrors(page: Page): string[] {
-  const errors: string[] = [];
-  page.on('console', (message) => {
-    if (message.type() === 'error') errors.push(message.text());
-  });
-  page.on('pageerror', (error) => errors.push(error.message));
-  return errors;
-}
-
-function results(page: Page): Locator {
-  return page.getByRole('region', { name: 'Results' });
-}
-
-/** The figure in the results row of an output (its first data cell). */
-function resultValue(page: Page, output: string): Locator {
-  return results(page)
-    .getByRole('row', { name: new RegExp(`^${literal(output)}(\\s|$)`) })
-    .getByRole('cell')
-    .first();
-}
-
-/** The calculator's own notes above the figures: its verdict and caveats. */
-function resultNotes(page: Page): Locator {
-  return results(page).getByRole('note', { name: 'What the results show' });
-}
-
-/** Every text field of the form, as it reads now. */
-async function typedInputs(page: Page): Promise<string[]> {
-  const values: string[] = [];
-  for (const field of await page.getByRole('region', { name: 'Inputs' }).getByRole('textbox').all()) values.push(await field.inputValue());
-  return values;
-}
-
-/** The page's address once it holds the share link for what is on screen (it follows each settled change). */
-async function shareLink(page: Page, ...params: string[]): Promise<string> {
-  for (const param of params) await expect(page).toHaveURL(new RegExp(`[?&]${literal(param)}(&|$)`));
-  return page.url();
-}
-
-async function expectNoBlockingViolations(page: Page): Promise<void> {
-  // The scan covers the worked steps' KaTeX too: they come when scrolled to (or 6 s after the first
-  // paint), so scroll to them rather than wait.
-  const steps = page.getByRole('region', { name: 'Worked steps' });
-  await steps.scrollIntoViewIfNeeded();
-  await expect(steps.getByRole('math').first()).toBeAttached();
-  const scan = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa', 'wcag22aa']).analyze();
-  const blocking = scan.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
-  expect(blocking.map((v) => `${v.id}: ${v.help} (${v.nodes.map((n) => n.target.join(' ')).join(', ')})`)).toEqual([]);
-}
 
 const compareTitle = 'Comparing two tests: is the change real?';
 const readingsA = 'Readings A (before, or stock)';
@@ -221,8 +168,8 @@ for (const c of cases) {
     if (c.note !== undefined) await expect(resultNotes(page)).toContainText(c.note);
 
     const [output, figure] = c.changed;
-    await expect(numberField(page, c.change.label)).toHaveValue(c.change.from);
-    await numberField(page, c.change.label).fill(c.change.to);
+    await expect(numberField(page, labelStart(c.change.label))).toHaveValue(c.change.from);
+    await numberField(page, labelStart(c.change.label)).fill(c.change.to);
     await expect(resultValue(page, output)).toHaveText(figure);
 
     const link = await shareLink(page, c.change.param, 'units=si');
@@ -231,7 +178,7 @@ for (const c of cases) {
     const openedErrors = watchErrors(opened);
     await opened.goto(link);
     await expect(opened.getByRole('heading', { level: 1, name: c.title })).toBeVisible();
-    await expect(numberField(opened, c.change.label)).toHaveValue(c.change.to);
+    await expect(numberField(opened, labelStart(c.change.label))).toHaveValue(c.change.to);
     expect(await typedInputs(opened)).toEqual(typed);
     await expect(resultValue(opened, output)).toHaveText(figure);
     await expectNoBlockingViolations(opened);
