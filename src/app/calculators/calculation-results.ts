@@ -9,9 +9,10 @@ import { formatFigure, unitLabel, unitSuffix } from './unit-labels';
 
 /**
  * The results: what they show in words (the calculator's notes, e.g. whether a gain is shown),
- * each output with its value and its own unit picker, then any notes on the formula's range. When the engine refuses the inputs, a short "fix the marked fields" takes
- * their place, so no stale figure is ever on screen. The region is polite-live: it changes only
- * after the form has been still for a moment, so screen readers hear settled results.
+ * each output with its value and its own unit picker, then any notes on the formula's range.
+ * When the engine refuses the inputs, a short "fix the marked fields" takes their place, so no
+ * stale figure is ever on screen. The region is polite-live: it changes only after the form has
+ * been still for a moment, so screen readers hear settled results.
  */
 @Component({
   selector: 'fl-calculation-results',
