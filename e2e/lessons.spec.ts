@@ -1,5 +1,6 @@
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Locator, type Page } from '@playwright/test';
+import { watchErrors } from './page-errors';
 
 // Lesson 1 and 2 as content/lessons/ has them; expected figures are the engine's own
 // (shared/airflow), as the embedded calculator must show them.
@@ -9,16 +10,6 @@ test.use({ locale: 'en-GB' });
 
 const pressureLesson = 'Pressure — absolute, gauge and differential';
 const pressureCalculator = 'Pressure: units, absolute and gauge';
-
-/** Console errors and uncaught page errors, collected for the whole test. */
-function watchErrors(page: Page): string[] {
-  const errors: string[] = [];
-  page.on('console', (message) => {
-    if (message.type() === 'error') errors.push(message.text());
-  });
-  page.on('pageerror', (error) => errors.push(error.message));
-  return errors;
-}
 
 /** The figure in an output's results row (its first data cell). */
 function resultValue(panel: Locator, output: string): Locator {

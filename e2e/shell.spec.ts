@@ -1,15 +1,6 @@
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
-
-/** Console errors and uncaught page errors, collected for the whole test. */
-function watchErrors(page: Page): string[] {
-  const errors: string[] = [];
-  page.on('console', (message) => {
-    if (message.type() === 'error') errors.push(message.text());
-  });
-  page.on('pageerror', (error) => errors.push(error.message));
-  return errors;
-}
+import { watchErrors } from './page-errors';
 
 test('the home page renders the shell with no console errors', async ({ page }) => {
   const errors = watchErrors(page);
