@@ -55,7 +55,7 @@ describe('compare-tests', () => {
     // lesson 9 (comparing-tests): a ±2 % calibration read as rectangular, 2 %/√3 = 1.15 % of each mean; 0.07 % ambient
     const u = Math.sqrt(2 * (1.2 ** 2 / 3) + (0.0007 * 250) ** 2 + (0.0007 * 254) ** 2 + (0.0115 * 250) ** 2 + (0.0115 * 254) ** 2);
     expect(out(r, 'differenceStandardUncertainty')).toBeCloseTo(u, 9);
-    expect(r.notes[0]).toMatch(/^A difference of 4\.0 ± \d\.\d cfm is not shown: it is smaller than its uncertainty\.$/);
+    expect(r.notes[0]).toMatch(/^A difference of 4\.0 ± \d\.\d cfm is not shown: it is no larger than its uncertainty\.$/);
   });
 
   it('uses the relative uncertainties given instead of lesson 9’s', () => {
@@ -95,9 +95,9 @@ describe('compare-tests', () => {
     const loss = compare({ readingsA: list(PORTED), readingsB: list(STOCK) });
     expect(loss.notes[0]).toBe('A loss of 4.0 ± 2.7 cfm is shown (95 % confidence).');
     const small = compare({ readingsA: list(STOCK), readingsB: list([249.8, 251.0, 252.2]) });
-    expect(small.notes[0]).toBe('A difference of 1.0 ± 2.7 cfm is not shown: it is smaller than its uncertainty.');
+    expect(small.notes[0]).toBe('A difference of 1.0 ± 2.7 cfm is not shown: it is no larger than its uncertainty.');
     const smallLoss = compare({ readingsA: list(STOCK), readingsB: list([247.8, 249.0, 250.2]) });
-    expect(smallLoss.notes[0]).toBe('A difference of −1.0 ± 2.7 cfm is not shown: it is smaller than its uncertainty.');
+    expect(smallLoss.notes[0]).toBe('A difference of −1.0 ± 2.7 cfm is not shown: it is no larger than its uncertainty.');
   });
 
   it('states the verdict in the unit of the readings', () => {

@@ -179,7 +179,7 @@ export const compareTests = defineCalculator({
     const text = `${d} ± ${u} ${plainUnit(unit)}`;
     ctx.note(shown
       ? `A ${difference > 0 ? 'gain' : 'loss'} of ${text} is shown (95 % confidence).`
-      : `A difference of ${text} is not shown: it is smaller than its uncertainty.`);
+      : `A difference of ${text} is not shown: it is no larger than its uncertainty.`);
     ctx.note(notes[setup] ?? '');
     if (Math.min(a.n, b.n) === 2) ctx.note('With only two runs of a set, the t factor is large. Three or more runs of each make the uncertainty much smaller.');
     ctx.note('This covers the scatter of these runs and the terms above. It does not cover a change to the setup between the tests, such as another adapter, seal or test pressure.');
