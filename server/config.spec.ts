@@ -36,6 +36,11 @@ describe('loadConfig', () => {
     expect(() => loadConfig({ DATABASE_URL: 'mysql://x', PORT: 'eighty' })).toThrow(/DATABASE_URL[\s\S]*PORT|PORT[\s\S]*DATABASE_URL/);
   });
 
+  it('reads the quiz folder, content/quizzes by default', () => {
+    expect(loadConfig({ DATABASE_URL: url }).quizDir).toMatch(/content[\\/]quizzes$/);
+    expect(loadConfig({ DATABASE_URL: url, QUIZ_DIR: '/srv/quizzes' }).quizDir).toBe('/srv/quizzes');
+  });
+
   it('requires a database URL', () => {
     expect(() => loadConfig({})).toThrow(/DATABASE_URL/);
   });

@@ -17,6 +17,8 @@ export interface Config {
   readonly serviceWorkerOff: boolean;
   /** The lesson Markdown files (content/lessons), rendered at start-up. */
   readonly contentDir: string;
+  /** The quiz definitions (content/quizzes, one YAML file per lesson), validated at start-up. */
+  readonly quizDir: string;
   /** Seconds to let in-flight requests finish on shutdown before closing them. */
   readonly shutdownGraceSeconds: number;
   /** Signs session cookies and CSRF tokens; required in production. */
@@ -57,6 +59,7 @@ const schema = z.object({
   CLIENT_DIR: z.string().min(1).default('dist/client/browser'),
   SERVICE_WORKER_OFF: flag.default(false),
   CONTENT_DIR: z.string().min(1).default('content/lessons'),
+  QUIZ_DIR: z.string().min(1).default('content/quizzes'),
   SHUTDOWN_GRACE_SECONDS: z.coerce.number().positive().default(10),
   SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must be at least 32 characters').optional(),
   PASSWORD_HASH_COST: z.coerce.number().int().min(4).max(15).default(12),
@@ -96,6 +99,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
     clientDir: resolve(value.CLIENT_DIR),
     serviceWorkerOff: value.SERVICE_WORKER_OFF,
     contentDir: resolve(value.CONTENT_DIR),
+    quizDir: resolve(value.QUIZ_DIR),
     shutdownGraceSeconds: value.SHUTDOWN_GRACE_SECONDS,
     sessionSecret: value.SESSION_SECRET ?? DEV_SESSION_SECRET,
     passwordHashCost: value.PASSWORD_HASH_COST,
