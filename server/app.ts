@@ -26,6 +26,12 @@ import { requestLog } from './http/request-log';
 import { LessonStore } from './lessons/lesson-store';
 import { lessonsRouter } from './lessons/lessons.router';
 import { Mailer, smtpTransport } from './mail/mailer';
+import { progressRouter } from './progress/progress.router';
+import { ProgressService } from './progress/progress.service';
+import { AttemptsService } from './quizzes/attempts.service';
+import type { QuizLibrary } from './quizzes/quiz-library';
+import { quizStore } from './quizzes/quiz-store';
+import { quizzesRouter } from './quizzes/quizzes.router';
 import { shopsRouter } from './shops/shops.router';
 
 export interface AppDependencies {
@@ -34,6 +40,8 @@ export interface AppDependencies {
   readonly logger: Logger;
   /** The rendered course; made from `config.contentDir` when not given. */
   readonly lessons?: LessonStore;
+  /** The quizzes (definitions with keys: server only); loaded from `config.quizDir` on first use when not given. */
+  readonly quizzes?: () => QuizLibrary;
   /** Sends and records e-mail; made from `config.mail` when not given. */
   readonly mailer?: Mailer;
   /** Per-address limits of sign-in, sign-up and reset (tests use their own key prefix). */
@@ -48,6 +56,7 @@ export function createApp({
   dataSource,
   logger,
   lessons = new LessonStore(config.contentDir, logger),
+  quizzes = quizStore(config.quizDir, () => lessons.current().lessons.map((lesson) => lesson.meta.slug), logger),
   mailer = new Mailer(smtpTransport(config.mail), config.mail.from, dataSource, logger),
   rateLimits = DEFAULT_RATE_LIMITS,
   now = () => new Date(),
@@ -98,6 +107,9 @@ export function createApp({
   api.use('/admin', adminRouter(new AdminService(dataSource, now)));
   api.use('/cohorts', cohortsRouter(new CohortsService(dataSource), dataSource));
   api.use('/shops', shopsRouter(dataSource));
+  const attempts = new AttemptsService(dataSource, { quizzes, now, appBaseUrl: config.appBaseUrl });
+  api.use(quizzesRouter(attempts));
+  api.use(progressRouter(new ProgressService(dataSource, attempts, () => lessons.current().lessons.map((lesson) => lesson.meta.slug), now)));
   api.use(apiNotFound);
   app.use('/api', api);
 

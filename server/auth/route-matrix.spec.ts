@@ -6,7 +6,9 @@ import { exampleRequest } from '../../shared/airflow';
 import type { User } from '../accounts/user.entity';
 import { Cohort } from '../cohorts/cohort.entity';
 import { listRoutes } from '../http/route-list';
-import { accountsTestApp, Browser, createShopOwner, createUser, migratedTestDataSource, signedIn, uniqueEmail, type AccountsTestApp } from '../testing/accounts';
+import { CohortMember } from '../cohorts/cohort-member.entity';
+import { fixtureLibrary, fixtureQuiz, quizTestApp } from '../quizzes/test-quizzes/fixture-quiz';
+import { Browser, createShopOwner, createUser, migratedTestDataSource, signedIn, uniqueEmail, type AccountsTestApp } from '../testing/accounts';
 
 /**
  * Every API route × every kind of caller, with the status each must get. The table must name
@@ -21,11 +23,15 @@ interface Fixture {
   cohortId: string;
   targetUserId: string;
   memberToAdd: string;
+  /** The quiz (a fixture) and two open attempts of the apprentice, who is in the instructor's cohort. */
+  quizSlug: string;
+  attemptId: string;
+  attemptToSubmit: string;
   users: Record<Exclude<Actor, 'visitor'>, User>;
 }
 
 interface Row {
-  request: (f: Fixture, actor: Actor) => { method: 'get' | 'post' | 'patch' | 'delete'; path: string; body?: object };
+  request: (f: Fixture, actor: Actor) => { method: 'get' | 'post' | 'put' | 'patch' | 'delete'; path: string; body?: object };
   expect: [visitor: number, apprentice: number, instructor: number, owner: number, admin: number, outsider: number];
 }
 
@@ -102,6 +108,31 @@ const MATRIX: Record<string, Row> = {
   },
 
   'GET /api/shops/mine': { request: get('/api/shops/mine'), expect: [401, 403, 403, 200, 403, 403] },
+
+  // Quizzes: every signed-in user gets the list; only apprentices start, answer and submit, and only
+  // their own attempts; the apprentice's cohort instructor and admins may look at an attempt.
+  'GET /api/quizzes': { request: get('/api/quizzes'), expect: [401, 200, 200, 200, 200, 200] },
+  'POST /api/quizzes/:slug/attempts': {
+    request: (f) => ({ method: 'post', path: `/api/quizzes/${f.quizSlug}/attempts` }),
+    expect: [401, 201, 403, 403, 403, 403],
+  },
+  'GET /api/attempts/:id': { request: (f) => ({ method: 'get', path: `/api/attempts/${f.attemptId}` }), expect: [401, 200, 200, 403, 200, 403] },
+  'PUT /api/attempts/:id/answers/:questionId': {
+    request: (f) => ({ method: 'put', path: `/api/attempts/${f.attemptId}/answers/why-test-pressure`, body: { answer: { choiceId: 'a' } } }),
+    expect: [401, 200, 403, 403, 403, 403],
+  },
+  'POST /api/attempts/:id/submit': {
+    request: (f) => ({ method: 'post', path: `/api/attempts/${f.attemptToSubmit}/submit` }),
+    expect: [401, 200, 403, 403, 403, 403],
+  },
+  // The test app has no lessons: an apprentice's lesson event is a 404 (the guard let it through).
+  'POST /api/progress/lessons/:slug': {
+    request: () => ({ method: 'post', path: '/api/progress/lessons/pressure', body: { event: 'opened' } }),
+    expect: [401, 404, 403, 403, 403, 403],
+  },
+  'GET /api/progress': { request: get('/api/progress'), expect: [401, 200, 403, 403, 403, 403] },
+  // Own (apprentice), cohorts' (instructor), all (admin); never a shop owner's.
+  'GET /api/learning-records': { request: get('/api/learning-records?limit=10'), expect: [401, 200, 200, 403, 200, 200] },
 };
 
 describe('route-by-role matrix', () => {
@@ -111,7 +142,8 @@ describe('route-by-role matrix', () => {
 
   beforeAll(async () => {
     dataSource = await migratedTestDataSource();
-    t = accountsTestApp(dataSource);
+    const quiz = fixtureQuiz({ lesson: `matrix-quiz-${randomUUID().slice(0, 8)}` });
+    t = quizTestApp(dataSource, fixtureLibrary(quiz));
     const { owner, shop } = await createShopOwner(dataSource);
     const users = {
       apprentice: await createUser(dataSource, { role: 'apprentice', shopId: shop.id }),
@@ -122,7 +154,13 @@ describe('route-by-role matrix', () => {
     };
     const cohort = await dataSource.getRepository(Cohort).save({ name: 'Matrix home cohort', instructorId: users.instructor.id });
     await dataSource.getRepository(Cohort).save({ name: 'Outsider cohort', instructorId: users.outsider.id });
+    await dataSource.getRepository(CohortMember).save({ cohortId: cohort.id, userId: users.apprentice.id });
+    const apprentice = await signedIn(t.app, users.apprentice);
+    const startAttempt = async () => (await apprentice.send('post', `/api/quizzes/${quiz.lesson}/attempts`)).body.id as string;
     fixture = {
+      quizSlug: quiz.lesson,
+      attemptId: await startAttempt(),
+      attemptToSubmit: await startAttempt(),
       cohortId: cohort.id,
       targetUserId: (await createUser(dataSource)).id,
       memberToAdd: (await createUser(dataSource)).id,

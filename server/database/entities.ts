@@ -4,8 +4,16 @@ import { AccountToken } from '../auth/account-token.entity';
 import { CohortMember } from '../cohorts/cohort-member.entity';
 import { Cohort } from '../cohorts/cohort.entity';
 import { OutboxMessage } from '../mail/outbox-message.entity';
+import { LearningRecord } from '../progress/learning-record.entity';
+import { LessonProgress } from '../progress/lesson-progress.entity';
+import { QuestionVersion } from '../quizzes/question-version.entity';
+import { QuizAttempt } from '../quizzes/quiz-attempt.entity';
+import { QuizResponse } from '../quizzes/quiz-response.entity';
 import { Shop } from '../shops/shop.entity';
 import { SeedRun } from './seed-run.entity';
 
 /** Every entity the DataSource knows; feature folders add theirs here. */
-export const entities = [SeedRun, User, Shop, Cohort, CohortMember, AccountToken, OutboxMessage, AuditEntry];
+export const entities = [
+  SeedRun, User, Shop, Cohort, CohortMember, AccountToken, OutboxMessage, AuditEntry,
+  QuestionVersion, QuizAttempt, QuizResponse, LessonProgress, LearningRecord,
+];

@@ -1,0 +1,412 @@
+import { randomInt } from 'node:crypto';
+
+import type { DataSource, EntityManager } from 'typeorm';
+
+import type { AnswerValue, AttemptQuestion, AttemptView, QuestionResult, QuizSummary } from '../../shared/api/quizzes';
+import { answerUnits, validateResponse, type ResponseValue } from '../../shared/quiz/answers';
+import type { QuestionDefinition, QuizDefinition } from '../../shared/quiz/definition';
+import { choiceOrder, drawFresh, interpolateStem, questionSeed, runCheck } from '../../shared/quiz/draw';
+import { gradeResponse, toleranceText } from '../../shared/quiz/grade';
+import type { User } from '../accounts/user.entity';
+import { HttpProblem } from '../http/problem';
+import { learningStatements } from '../progress/learning-statements';
+import { LearningRecord } from '../progress/learning-record.entity';
+import { QuestionVersion, type QuestionHtml } from './question-version.entity';
+import { mayTakeQuiz, mayViewAttemptsOf } from './quiz-access';
+import { QuizAttempt } from './quiz-attempt.entity';
+import type { LoadedQuiz, QuizLibrary } from './quiz-library';
+import { QuizResponse, type DrawnNumbers } from './quiz-response.entity';
+
+export interface AttemptsServiceOptions {
+  /** The quizzes as loaded now (re-read in development). */
+  readonly quizzes: () => QuizLibrary;
+  readonly now?: () => Date;
+  /** A new attempt's seed (tests may fix it); a random 31-bit integer by default. */
+  readonly newSeed?: () => number;
+  /** The app's public address: xAPI activity ids are made from it. */
+  readonly appBaseUrl: string;
+}
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/**
+ * Attempts at quizzes: start (draw the numbers, shuffle the choices, keep them), autosave per
+ * question, submit (graded once, under a row lock) and the result. The deadline is the server's:
+ * an answer saved after it is refused, and an attempt past it is graded on what was saved.
+ */
+export class AttemptsService {
+  private readonly versionIds = new Map<string, string>();
+  private readonly now: () => Date;
+  private readonly newSeed: () => number;
+
+  constructor(
+    private readonly dataSource: DataSource,
+    private readonly options: AttemptsServiceOptions,
+  ) {
+    this.now = options.now ?? (() => new Date());
+    this.newSeed = options.newSeed ?? (() => randomInt(0, 2 ** 31 - 1));
+  }
+
+  private quiz(slug: string): LoadedQuiz {
+    const quiz = this.options.quizzes().quizzes.get(slug);
+    if (!quiz) throw HttpProblem.notFound(`There is no quiz "${slug}". GET /api/quizzes lists them.`);
+    return quiz;
+  }
+
+  /** Every quiz with the caller's attempts used, best score and status. */
+  async list(user: User): Promise<QuizSummary[]> {
+    await this.gradeExpired({ userId: user.id });
+    const attempts = await this.dataSource.getRepository(QuizAttempt).find({ where: { userId: user.id }, order: { number: 'ASC' } });
+    const summaries: QuizSummary[] = [];
+    for (const [slug, loaded] of this.options.quizzes().quizzes) {
+      const quiz = loaded.definition;
+      const mine = attempts.filter((a) => a.quizSlug === slug);
+      const graded = mine.filter((a) => a.status === 'submitted');
+      const best = bestOf(graded);
+      const open = mine.find((a) => a.status === 'open');
+      summaries.push({
+        slug,
+        title: quiz.title,
+        questionCount: quiz.questions.length,
+        totalPoints: quiz.questions.reduce((sum, q) => sum + maxPointsOf(q), 0),
+        passMark: quiz.passMark,
+        attemptLimit: quiz.attemptLimit,
+        timeLimitMinutes: quiz.timeLimitMinutes ?? null,
+        attemptsUsed: mine.length,
+        status: best?.passed ? 'passed' : graded.length > 0 ? 'not-yet-passed' : open ? 'in-progress' : 'not-started',
+        best: best ? { attemptId: best.id, scorePercent: best.scorePercent ?? 0, passed: best.passed === true, provisional: best.pendingCount > 0 } : null,
+        openAttempt: open ? { id: open.id, deadline: open.deadlineAt?.toISOString() ?? null } : null,
+      });
+    }
+    return summaries;
+  }
+
+  /** Starts an attempt: at most `attemptLimit` per apprentice and quiz, also under concurrent starts. */
+  async start(user: User, slug: string): Promise<AttemptView> {
+    const loaded = this.quiz(slug);
+    if (!mayTakeQuiz(user, slug)) throw HttpProblem.forbidden('Only apprentices take quizzes.');
+    const quiz = loaded.definition;
+    const versions = await this.versionsOf(slug, loaded);
+    const attemptId = await this.dataSource.transaction(async (manager) => {
+      // One start at a time per apprentice and quiz: the count below cannot go stale.
+      await manager.query('SELECT pg_advisory_xact_lock(hashtext($1))', [`quiz-attempt:${user.id}:${slug}`]);
+      const [{ used }] = await manager.query('SELECT count(*)::int AS used FROM quiz_attempt WHERE user_id = $1 AND quiz_slug = $2', [user.id, slug]);
+      if (used >= quiz.attemptLimit) {
+        throw HttpProblem.conflict(`You have used all ${quiz.attemptLimit} attempts at this quiz. Your best attempt counts.`);
+      }
+      const startedAt = this.now();
+      const seed = this.newSeed();
+      const attempt = await manager.save(
+        manager.create(QuizAttempt, {
+          userId: user.id,
+          quizSlug: slug,
+          number: used + 1,
+          seed,
+          status: 'open',
+          passMark: quiz.passMark,
+          startedAt,
+          deadlineAt: quiz.timeLimitMinutes ? new Date(startedAt.getTime() + quiz.timeLimitMinutes * 60_000) : null,
+          maxPoints: quiz.questions.reduce((sum, q) => sum + maxPointsOf(q), 0),
+          pendingCount: 0,
+        }),
+      );
+      const responses = quiz.questions.map((question, position) => {
+        const qSeed = questionSeed(seed, question.id) | 0;
+        let drawn: DrawnNumbers | null = null;
+        let key = null;
+        if (question.kind === 'fresh') {
+          const draw = drawFresh(question, qSeed);
+          drawn = { inputs: draw.inputs, shown: draw.shown, steps: draw.steps };
+          key = draw.key;
+        } else if (question.kind === 'numeric') {
+          key = question.key;
+        }
+        return manager.create(QuizResponse, {
+          attemptId: attempt.id,
+          questionVersionId: versions.get(question.id)!,
+          questionId: question.id,
+          position,
+          seed: qSeed,
+          choiceOrder: question.kind === 'single' || question.kind === 'multiple' ? choiceOrder(question.choices, qSeed) : null,
+          drawn,
+          key,
+          answer: null,
+          maxPoints: maxPointsOf(question),
+        });
+      });
+      await manager.save(responses);
+      return attempt.id;
+    });
+    return this.view(user, attemptId);
+  }
+
+  /** The attempt as its apprentice answers it, or its result once graded. */
+  async view(viewer: User, attemptId: string): Promise<AttemptView> {
+    let attempt = await this.attemptFor(viewer, attemptId, 'view');
+    if (attempt.status === 'open' && this.expired(attempt)) {
+      await this.submitLocked(attemptId);
+      attempt = (await this.dataSource.getRepository(QuizAttempt).findOneBy({ id: attemptId }))!;
+    }
+    return this.render(attempt);
+  }
+
+  /** Keeps one answer as the draft. A refused answer (wrong kind, unit, not a number) leaves the stored draft as it was. */
+  async saveAnswer(user: User, attemptId: string, questionId: string, raw: unknown): Promise<{ questionId: string; answer: AnswerValue | null; savedAt: string }> {
+    await this.attemptFor(user, attemptId, 'answer');
+    const savedAt = this.now();
+    const result = await this.dataSource.transaction(async (manager) => {
+      // FOR SHARE: a submit (FOR UPDATE) waits for this save, and this save sees a finished submit.
+      const attempt = await manager.getRepository(QuizAttempt).findOne({ where: { id: attemptId }, lock: { mode: 'pessimistic_read' } });
+      if (!attempt) throw HttpProblem.notFound(`There is no attempt "${attemptId}".`);
+      if (attempt.status !== 'open') throw HttpProblem.conflict('This attempt is submitted; answers can no longer change.');
+      if (this.expired(attempt)) return 'expired' as const;
+      const response = await manager.getRepository(QuizResponse).findOne({ where: { attemptId, questionId }, relations: { questionVersion: true } });
+      if (!response) throw HttpProblem.notFound(`This attempt has no question "${questionId}".`);
+      let answer: ResponseValue | null = null;
+      if (raw !== null && raw !== undefined) {
+        const checked = validateResponse(response.questionVersion!.definition, raw);
+        if (typeof checked === 'string') {
+          throw HttpProblem.badRequest(`Question "${questionId}": ${checked}`, [{ field: `answers.${questionId}`, message: checked }]);
+        }
+        answer = checked;
+      }
+      await manager.update(QuizResponse, { id: response.id }, { answer, answeredAt: savedAt });
+      return answer;
+    });
+    if (result === 'expired') {
+      await this.submitLocked(attemptId);
+      throw HttpProblem.conflict('The time for this attempt is up; the answers saved before it ended are graded.');
+    }
+    return { questionId, answer: result as AnswerValue | null, savedAt: savedAt.toISOString() };
+  }
+
+  /** Final and idempotent: the first submit grades; a repeat or a concurrent one returns the same result. */
+  async submit(user: User, attemptId: string): Promise<AttemptView> {
+    await this.attemptFor(user, attemptId, 'answer');
+    await this.submitLocked(attemptId);
+    const attempt = (await this.dataSource.getRepository(QuizAttempt).findOneBy({ id: attemptId }))!;
+    return this.render(attempt);
+  }
+
+  /** Grades every open attempt past its deadline (of one apprentice, or all). */
+  async gradeExpired(where: { userId?: string } = {}): Promise<number> {
+    const rows: Array<{ id: string }> = await this.dataSource.query(
+      `SELECT id FROM quiz_attempt WHERE status = 'open' AND deadline_at < $1 AND ($2::uuid IS NULL OR user_id = $2)`,
+      [this.now(), where.userId ?? null],
+    );
+    for (const row of rows) await this.submitLocked(row.id);
+    return rows.length;
+  }
+
+  private expired(attempt: QuizAttempt): boolean {
+    return attempt.deadlineAt !== null && this.now().getTime() > attempt.deadlineAt.getTime();
+  }
+
+  /** The attempt, if the caller may see it (`view`) or act on it (`answer`: its apprentice only). */
+  private async attemptFor(user: User, attemptId: string, purpose: 'view' | 'answer'): Promise<QuizAttempt> {
+    const attempt = UUID.test(attemptId) ? await this.dataSource.getRepository(QuizAttempt).findOneBy({ id: attemptId }) : null;
+    if (!attempt) throw HttpProblem.notFound(`There is no attempt "${attemptId}".`);
+    const allowed = purpose === 'answer' ? attempt.userId === user.id : await mayViewAttemptsOf(this.dataSource, user, attempt.userId);
+    if (!allowed) throw HttpProblem.forbidden('This attempt belongs to someone else.');
+    return attempt;
+  }
+
+  /** Grades the attempt once: the row lock makes every other submit wait, then find it graded. */
+  private async submitLocked(attemptId: string): Promise<void> {
+    await this.dataSource.transaction(async (manager) => {
+      const attempt = await manager.getRepository(QuizAttempt).findOne({ where: { id: attemptId }, lock: { mode: 'pessimistic_write' } });
+      if (!attempt || attempt.status !== 'open') return;
+      const now = this.now();
+      const submittedAt = attempt.deadlineAt && now > attempt.deadlineAt ? attempt.deadlineAt : now;
+      await this.grade(manager, attempt, submittedAt);
+    });
+  }
+
+  private async grade(manager: EntityManager, attempt: QuizAttempt, submittedAt: Date): Promise<void> {
+    const responses = await manager.getRepository(QuizResponse).find({ where: { attemptId: attempt.id }, relations: { questionVersion: true }, order: { position: 'ASC' } });
+    let points = 0;
+    let pending = 0;
+    for (const response of responses) {
+      const question = response.questionVersion!.definition;
+      const graded = gradeResponse(question, (response.answer ?? undefined) as ResponseValue | undefined, { key: response.key ?? undefined });
+      response.points = graded.points;
+      response.status = graded.status;
+      response.withinTolerance = graded.withinTolerance ?? null;
+      response.answerInKeyUnit = graded.answerInKeyUnit ?? null;
+      response.gradedAt = submittedAt;
+      await manager.update(
+        QuizResponse,
+        { id: response.id },
+        { points: response.points, status: response.status, withinTolerance: response.withinTolerance, answerInKeyUnit: response.answerInKeyUnit, gradedAt: submittedAt },
+      );
+      points += response.overridePoints ?? graded.points;
+      if (graded.status === 'pending') pending++;
+    }
+    const scorePercent = attempt.maxPoints > 0 ? (100 * points) / attempt.maxPoints : 0;
+    attempt.status = 'submitted';
+    attempt.submittedAt = submittedAt;
+    attempt.points = points;
+    attempt.scorePercent = scorePercent;
+    attempt.passed = passes(points, attempt.maxPoints, attempt.passMark);
+    attempt.pendingCount = pending;
+    await manager.update(
+      QuizAttempt,
+      { id: attempt.id },
+      { status: 'submitted', submittedAt, points, scorePercent, passed: attempt.passed, pendingCount: pending },
+    );
+    const user = await manager.query('SELECT display_name FROM user_account WHERE id = $1', [attempt.userId]);
+    const quiz = this.options.quizzes().quizzes.get(attempt.quizSlug)?.definition;
+    const statements = learningStatements({
+      baseUrl: this.options.appBaseUrl,
+      user: { id: attempt.userId, name: user[0]?.display_name ?? '' },
+      quiz: { slug: attempt.quizSlug, title: quiz?.title ?? attempt.quizSlug },
+      attempt,
+      responses,
+    });
+    await manager.save(statements.map(({ verb, statement }) => manager.create(LearningRecord, { userId: attempt.userId, attemptId: attempt.id, verb, statement, storedAt: submittedAt })));
+  }
+
+  /** The attempt for the browser: questions as asked, and after grading, the result that teaches. */
+  private async render(attempt: QuizAttempt): Promise<AttemptView> {
+    const loaded = this.options.quizzes().quizzes.get(attempt.quizSlug);
+    const responses = await this.dataSource.getRepository(QuizResponse).find({ where: { attemptId: attempt.id }, relations: { questionVersion: true }, order: { position: 'ASC' } });
+    const graded = attempt.status === 'submitted';
+    const view: AttemptView = {
+      id: attempt.id,
+      quiz: { slug: attempt.quizSlug, title: loaded?.definition.title ?? attempt.quizSlug },
+      number: attempt.number,
+      attemptLimit: loaded?.definition.attemptLimit ?? attempt.number,
+      status: attempt.status,
+      startedAt: attempt.startedAt.toISOString(),
+      deadline: attempt.deadlineAt?.toISOString() ?? null,
+      submittedAt: attempt.submittedAt?.toISOString() ?? null,
+      questions: responses.map((response) => {
+        const asked = askedQuestion(response);
+        return graded ? { ...asked, result: questionResult(response) } : asked;
+      }),
+    };
+    if (graded) {
+      view.score = {
+        points: attempt.points ?? 0,
+        maxPoints: attempt.maxPoints,
+        percent: attempt.scorePercent ?? 0,
+        passMark: attempt.passMark,
+        passed: attempt.passed === true,
+        provisional: attempt.pendingCount > 0,
+        pendingCount: attempt.pendingCount,
+      };
+    }
+    return view;
+  }
+
+  /** The stored version of each question of a quiz (made when a definition is first served). */
+  private async versionsOf(slug: string, loaded: LoadedQuiz): Promise<Map<string, string>> {
+    const result = new Map<string, string>();
+    const missing: QuestionDefinition[] = [];
+    for (const question of loaded.definition.questions) {
+      const id = this.versionIds.get(`${slug}\n${question.id}\n${loaded.fingerprints.get(question.id)}`);
+      if (id) result.set(question.id, id);
+      else missing.push(question);
+    }
+    if (missing.length === 0) return result;
+    await this.dataSource.transaction(async (manager) => {
+      await manager.query('SELECT pg_advisory_xact_lock(hashtext($1))', [`question-version:${slug}`]);
+      const repo = manager.getRepository(QuestionVersion);
+      for (const question of missing) {
+        const fingerprint = loaded.fingerprints.get(question.id);
+        if (!fingerprint) throw new Error(`quiz ${slug}: question "${question.id}" has no fingerprint`);
+        let version = await repo.findOneBy({ quizSlug: slug, questionId: question.id, fingerprint });
+        if (!version) {
+          const [{ last }] = await manager.query('SELECT coalesce(max(version), 0)::int AS last FROM question_version WHERE quiz_slug = $1 AND question_id = $2', [slug, question.id]);
+          const html = loaded.html.get(question.id);
+          if (!html) throw new Error(`quiz ${slug}: question "${question.id}" has no rendered HTML`);
+          version = await repo.save(repo.create({ quizSlug: slug, questionId: question.id, version: last + 1, fingerprint, definition: question, html }));
+        }
+        this.versionIds.set(`${slug}\n${question.id}\n${fingerprint}`, version.id);
+        result.set(question.id, version.id);
+      }
+    });
+    return result;
+  }
+}
+
+/** The attempt with the best score counts (the earliest of equals). */
+export function bestOf(graded: readonly QuizAttempt[]): QuizAttempt | undefined {
+  let best: QuizAttempt | undefined;
+  for (const attempt of graded) if (!best || (attempt.scorePercent ?? 0) > (best.scorePercent ?? 0)) best = attempt;
+  return best;
+}
+
+export function maxPointsOf(question: QuestionDefinition): number {
+  return question.kind === 'written' ? question.rubric.reduce((sum, c) => sum + c.points, 0) : question.points;
+}
+
+/** points / max ≥ passMark %, compared without a float's rounding getting in the way. */
+export function passes(points: number, maxPoints: number, passMark: number): boolean {
+  return maxPoints > 0 && points * 100 >= passMark * maxPoints - 1e-9;
+}
+
+/** What the apprentice needs to answer: no key, no rubric, no correctness, no explanation. */
+function askedQuestion(response: QuizResponse): AttemptQuestion {
+  const question = response.questionVersion!.definition;
+  const html: QuestionHtml = response.questionVersion!.html;
+  const asked: AttemptQuestion = {
+    id: question.id,
+    kind: question.kind,
+    points: response.maxPoints,
+    stemHtml: question.kind === 'fresh' && response.drawn ? interpolateStem(html.stem, response.drawn.shown) : html.stem,
+    answer: (response.answer as AnswerValue | null) ?? null,
+  };
+  if (question.kind === 'single' || question.kind === 'multiple') {
+    asked.choices = (response.choiceOrder ?? question.choices.map((c) => c.id)).map((id) => ({ id, html: html.choices?.[id] ?? '' }));
+  }
+  if (question.kind === 'multiple') {
+    asked.partialCredit =
+      question.partialCredit === 'per-choice'
+        ? 'Each choice you judge right (ticked and correct, or left and wrong) earns its share of the points.'
+        : 'Full points only for exactly the correct set; nothing otherwise.';
+  }
+  if (question.kind === 'numeric' || question.kind === 'fresh') {
+    asked.tolerance = toleranceText(question.tolerance);
+    asked.answerUnit = question.kind === 'numeric' ? question.key.unit : question.answerUnit;
+    asked.units = answerUnits(asked.answerUnit);
+  }
+  return asked;
+}
+
+/** After grading: what the answer earned, the key and the explanation, with the worked steps. */
+function questionResult(response: QuizResponse): QuestionResult {
+  const question = response.questionVersion!.definition;
+  const html: QuestionHtml = response.questionVersion!.html;
+  const result: QuestionResult = {
+    status: response.status ?? 'unanswered',
+    points: response.overridePoints ?? response.points,
+    maxPoints: response.maxPoints,
+    explanationHtml: html.explanation,
+    override:
+      response.overridePoints !== null && response.overrideReason !== null
+        ? { points: response.overridePoints, reason: response.overrideReason, at: response.overrideAt?.toISOString() ?? '' }
+        : null,
+  };
+  if (question.kind === 'single' || question.kind === 'multiple') result.correctChoices = question.choices.filter((c) => c.correct).map((c) => c.id);
+  if (question.kind === 'numeric' || question.kind === 'fresh') {
+    if (response.key) result.key = response.key;
+    if (response.withinTolerance !== null) result.withinTolerance = response.withinTolerance;
+    if (response.answerInKeyUnit !== null) result.answerInKeyUnit = response.answerInKeyUnit;
+    if (question.kind === 'fresh') result.steps = response.drawn?.steps ?? [];
+    else {
+      const run = runCheck(question);
+      result.steps = run.ok ? run.steps : [];
+    }
+  }
+  if (question.kind === 'written') {
+    if (response.status === 'pending') result.points = null;
+    // The rubric is the instructors' until they have graded: then the apprentice sees the marks.
+    const marks = response.rubricMarks;
+    if (marks) result.rubric = question.rubric.map((c) => ({ criterion: c.criterion, maxPoints: c.points, points: marks?.find((m) => m.criterion === c.criterion)?.points ?? null }));
+    result.comment = response.graderComment;
+  }
+  return result;
+}
+
+export type { QuizDefinition };
