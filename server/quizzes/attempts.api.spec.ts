@@ -4,6 +4,7 @@ import type { AttemptView, QuizSummary } from '../../shared/api/quizzes';
 import { Cohort } from '../cohorts/cohort.entity';
 import { CohortMember } from '../cohorts/cohort-member.entity';
 import { createUser, migratedTestDataSource, signedIn, type Browser } from '../testing/accounts';
+import { rescoreAttempt } from './attempts.service';
 import { fixtureLibrary, fixtureQuiz, quizTestApp, uniqueSlug } from './test-quizzes/fixture-quiz';
 
 /**
@@ -138,6 +139,28 @@ describe('quiz attempts API', () => {
     expect(repeat.body).toEqual(res.body);
     const [{ n }] = await dataSource.query(`SELECT count(*)::int AS n FROM learning_record WHERE attempt_id = $1 AND verb = 'completed'`, [view.id]);
     expect(n).toBe(1);
+
+    // An instructor's rubric marks (the grading queue's part) and a rescore: the final score.
+    await dataSource.transaction(async (manager) => {
+      await manager.query(
+        `UPDATE quiz_response SET points = 3, status = 'correct', rubric_marks = $2, grader_comment = 'Well put.', graded_by = $3
+          WHERE attempt_id = $1 AND question_id = 'explain-overlap'`,
+        [view.id, JSON.stringify([{ criterion: 'Says overlap of intervals is not the test', points: 1, maxPoints: 1 }, { criterion: 'Names what cancels on the same bench and day', points: 2, maxPoints: 2 }]), null],
+      );
+      await rescoreAttempt(manager, view.id);
+    });
+    const final = (await browser.get(`/api/attempts/${view.id}`)).body as AttemptView;
+    expect(final.score).toMatchObject({ points: 10.5, passed: true, provisional: false, pendingCount: 0 });
+    expect(final.questions.find((x) => x.id === 'explain-overlap')!.result).toMatchObject({
+      points: 3,
+      comment: 'Well put.',
+      rubric: [
+        { criterion: 'Says overlap of intervals is not the test', points: 1, maxPoints: 1 },
+        { criterion: 'Names what cancels on the same bench and day', points: 2, maxPoints: 2 },
+      ],
+    });
+    const list2 = (await browser.get('/api/quizzes')).body as QuizSummary[];
+    expect(list2.find((s) => s.slug === slug)).toMatchObject({ status: 'passed', best: { attemptId: view.id, passed: true, provisional: false } });
     expect(id).toBeDefined();
   });
 

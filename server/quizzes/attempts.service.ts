@@ -330,6 +330,29 @@ export class AttemptsService {
   }
 }
 
+/**
+ * Sums a graded attempt again from its responses (an instructor's override or rubric marks win
+ * over the automatic points) and sets score, pass and pending count. For the grading queue,
+ * overrides and regrades: call it in the transaction that changed a response.
+ */
+export async function rescoreAttempt(manager: EntityManager, attemptId: string): Promise<QuizAttempt> {
+  const attempt = await manager.getRepository(QuizAttempt).findOne({ where: { id: attemptId }, lock: { mode: 'pessimistic_write' } });
+  if (!attempt) throw HttpProblem.notFound(`There is no attempt "${attemptId}".`);
+  if (attempt.status !== 'submitted') return attempt;
+  const [row] = await manager.query(
+    `SELECT coalesce(sum(coalesce(override_points, points, 0)), 0)::float8 AS points,
+            count(*) FILTER (WHERE status = 'pending' AND override_points IS NULL)::int AS pending
+       FROM quiz_response WHERE attempt_id = $1`,
+    [attemptId],
+  );
+  attempt.points = row.points as number;
+  attempt.pendingCount = row.pending as number;
+  attempt.scorePercent = attempt.maxPoints > 0 ? (100 * attempt.points) / attempt.maxPoints : 0;
+  attempt.passed = passes(attempt.points, attempt.maxPoints, attempt.passMark);
+  await manager.update(QuizAttempt, { id: attempt.id }, { points: attempt.points, pendingCount: attempt.pendingCount, scorePercent: attempt.scorePercent, passed: attempt.passed });
+  return attempt;
+}
+
 /** The attempt with the best score counts (the earliest of equals). */
 export function bestOf(graded: readonly QuizAttempt[]): QuizAttempt | undefined {
   let best: QuizAttempt | undefined;
