@@ -1,8 +1,8 @@
 import { Routes } from '@angular/router';
 
 import { calculatorTitle } from './calculators/calculator-title';
-import { roleGuard } from './core/auth-guards';
-import { lessonTitle } from './course/lesson-title';
+import { roleGuard, signedInGuard } from './core/auth-guards';
+import { lessonTitle, quizTitle } from './course/lesson-title';
 import { HomePage } from './home/home-page';
 
 // Every page but the home page is its own lazy chunk; the shell (top bar, navigation, footer) and
@@ -20,6 +20,13 @@ export const routes: Routes = [
     path: 'course',
     title: 'Course',
     loadComponent: () => import('./course/course-outline').then((m) => m.CourseOutline),
+  },
+  {
+    path: 'course/:slug/quiz',
+    title: quizTitle,
+    data: { needsConnection: true },
+    canActivate: [signedInGuard],
+    loadComponent: () => import('./quizzes/quiz-page').then((m) => m.QuizPage),
   },
   {
     path: 'course/:slug',
@@ -60,6 +67,13 @@ export const routes: Routes = [
     data: { needsConnection: true },
     canActivate: [roleGuard('instructor')],
     loadChildren: () => import('./cohorts/cohorts.routes').then((m) => m.cohortsRoutes),
+  },
+  {
+    path: 'progress',
+    title: 'My progress',
+    data: { needsConnection: true },
+    canActivate: [roleGuard('apprentice')],
+    loadComponent: () => import('./progress/progress-page').then((m) => m.ProgressPage),
   },
   {
     path: 'shop',

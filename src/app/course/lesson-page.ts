@@ -8,6 +8,7 @@ import {
   ElementRef,
   afterNextRender,
   computed,
+  effect,
   inject,
   input,
   linkedSignal,
@@ -20,6 +21,8 @@ import { MatIcon } from '@angular/material/icon';
 import { ActivatedRoute, RouterLink } from '@angular/router';
 
 import { KatexStylesheet } from '../calculators/katex-stylesheet';
+import { AuthService } from '../core/auth.service';
+import { ProgressApi } from '../progress/progress-api';
 import { LessonContent } from './lesson-content';
 import { LessonsService } from './lessons.service';
 import { ReadingPositionService } from './reading-position.service';
@@ -27,6 +30,8 @@ import { TableOfContents } from './table-of-contents';
 
 /** A heading counts as reached once it is in the top quarter of the window. */
 const reachedLine = 0.25;
+/** The reader has reached the end once the window is this far through the text. */
+const finishedAt = 0.98;
 
 /**
  * One lesson: title, time and objectives, its contents, the text with live calculators, previous
@@ -47,6 +52,8 @@ export class LessonPage {
   private readonly route = inject(ActivatedRoute);
   private readonly document = inject(DOCUMENT);
   private readonly scroller = inject(ViewportScroller);
+  private readonly progressApi = inject(ProgressApi);
+  protected readonly auth = inject(AuthService);
 
   protected readonly lesson = inject(LessonsService).lesson(this.slug);
   protected readonly page = computed(() => (this.lesson.hasValue() ? this.lesson.value() : undefined));
@@ -75,6 +82,20 @@ export class LessonPage {
   private headingWatch?: IntersectionObserver;
 
   constructor() {
+    // An apprentice's progress: "opened" once per lesson shown, "finished" once the end is reached.
+    const reported = new Set<string>();
+    const report = (slug: string, event: 'opened' | 'finished') => {
+      if (reported.has(`${event}:${slug}`)) return;
+      reported.add(`${event}:${slug}`);
+      void this.progressApi.recordLesson(slug, event);
+    };
+    effect(() => {
+      const slug = this.page()?.slug;
+      if (slug === undefined || this.auth.role() !== 'apprentice') return;
+      untracked(() => report(slug, 'opened'));
+      if (this.progress() >= finishedAt) untracked(() => report(slug, 'finished'));
+    });
+
     // Lessons are full of formulas: KaTeX's stylesheet and fonts come with this page, not the home page.
     inject(KatexStylesheet).load();
 

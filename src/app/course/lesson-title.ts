@@ -13,3 +13,9 @@ export const lessonTitle: ResolveFn<string> = async (route) => {
   const title = await lessons.titleOf(route.paramMap.get('slug') ?? '');
   return title === null ? 'No such lesson' : (title ?? 'Lesson');
 };
+
+/** The page title of /course/:slug/quiz: "<lesson> quiz". */
+export const quizTitle: ResolveFn<string> = async (route) => {
+  const title = await inject(LessonsService).titleOf(route.paramMap.get('slug') ?? '');
+  return title ? `${title}: quiz` : 'Quiz';
+};

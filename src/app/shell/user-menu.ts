@@ -17,6 +17,9 @@ import { AuthService } from '../core/auth.service';
         <svg class="chevron" viewBox="0 0 24 24" aria-hidden="true" focusable="false"><path d="M7 10l5 5 5-5" /></svg>
       </button>
       <mat-menu #menu="matMenu" xPosition="before">
+        @if (user.role === 'apprentice') {
+          <a mat-menu-item routerLink="/progress">My progress</a>
+        }
         <a mat-menu-item routerLink="/account/profile">Profile</a>
         <button mat-menu-item type="button" (click)="signOut()">Sign out</button>
       </mat-menu>
