@@ -19,7 +19,7 @@ export class CourseOutline {
   protected readonly outline = inject(LessonsService).outline();
   private readonly auth = inject(AuthService);
   /** A signed-in apprentice's own progress; nobody else's is asked for. */
-  protected readonly progress = inject(ProgressApi).mine(() => this.auth.role() === 'apprentice');
+  protected readonly progress = inject(ProgressApi).mine(() => this.auth.role() === 'apprentice', 'background');
   protected readonly statuses = computed(() => {
     const statuses = new Map<string, LessonStatus>();
     if (!this.progress.hasValue() || this.auth.role() !== 'apprentice') return statuses;

@@ -10,9 +10,13 @@ import { problemDisplay } from '../core/problem';
 export class ProgressApi {
   private readonly http = inject(HttpClient);
 
-  /** Lessons opened and finished, quizzes and last activity. No request while `enabled` is false (not an apprentice). */
-  mine(enabled: () => boolean = () => true): HttpResourceRef<MyProgress | undefined> {
-    return httpResource(() => (enabled() ? '/api/progress' : undefined), { parse: parseProgress });
+  /**
+   * Lessons opened and finished, quizzes and last activity. No request while `enabled` is false (not
+   * an apprentice). `background`: a page that is public anyway (the course outline) stays put when
+   * the session has ended, instead of going to the sign-in page.
+   */
+  mine(enabled: () => boolean = () => true, display: 'page' | 'background' = 'page'): HttpResourceRef<MyProgress | undefined> {
+    return httpResource(() => (enabled() ? { url: '/api/progress', context: problemDisplay(display) } : undefined), { parse: parseProgress });
   }
 
   /** "Opened" or "finished": quiet, the reader never asked for it; a failure (offline) is dropped. */
