@@ -19,6 +19,8 @@ import { sessionCookieName, sessionMiddleware, sessionTimeouts } from './auth/se
 import { calculatorsRouter } from './calculators/calculators.router';
 import { cohortsRouter } from './cohorts/cohorts.router';
 import { CohortsService } from './cohorts/cohorts.service';
+import { gradebookRouter, shopProgressRouter } from './gradebook/gradebook.router';
+import { GradebookService } from './gradebook/gradebook.service';
 import { healthRouter } from './health/health.router';
 import { clientApp } from './http/client-app';
 import { apiNotFound, problemHandler } from './http/error-handler';
@@ -105,7 +107,11 @@ export function createApp({
   );
   api.use('/account', profileRouter(dataSource));
   api.use('/admin', adminRouter(new AdminService(dataSource, now)));
+  const lessonSlugs = () => lessons.current().lessons.map((lesson) => lesson.meta.slug);
+  const gradebook = new GradebookService(dataSource, { quizzes, lessonSlugs, now });
+  api.use('/cohorts', gradebookRouter(gradebook, dataSource));
   api.use('/cohorts', cohortsRouter(new CohortsService(dataSource), dataSource));
+  api.use(shopProgressRouter(gradebook));
   api.use('/shops', shopsRouter(dataSource));
   const attempts = new AttemptsService(dataSource, { quizzes, now, appBaseUrl: config.appBaseUrl });
   api.use(quizzesRouter(attempts));

@@ -108,6 +108,11 @@ const MATRIX: Record<string, Row> = {
   },
 
   'GET /api/shops/mine': { request: get('/api/shops/mine'), expect: [401, 403, 403, 200, 403, 403] },
+  // Progress of the owner's own shop only (completion, no answers); nobody else's.
+  'GET /api/shop/progress': { request: get('/api/shop/progress'), expect: [401, 403, 403, 200, 403, 403] },
+  // The gradebook: the cohort's instructor and admins; another instructor's is a 403.
+  'GET /api/cohorts/:id/gradebook': { request: (f) => ({ method: 'get', path: `/api/cohorts/${f.cohortId}/gradebook?sort=name` }), expect: [401, 403, 200, 403, 200, 403] },
+  'GET /api/cohorts/:id/gradebook.csv': { request: (f) => ({ method: 'get', path: `/api/cohorts/${f.cohortId}/gradebook.csv` }), expect: [401, 403, 200, 403, 200, 403] },
 
   // Quizzes: every signed-in user gets the list; only apprentices start, answer and submit, and only
   // their own attempts; the apprentice's cohort instructor and admins may look at an attempt.
