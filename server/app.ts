@@ -31,6 +31,8 @@ import { Mailer, smtpTransport } from './mail/mailer';
 import { progressRouter } from './progress/progress.router';
 import { ProgressService } from './progress/progress.service';
 import { AttemptsService } from './quizzes/attempts.service';
+import { gradingRouter } from './quizzes/grading.router';
+import { GradingService } from './quizzes/grading.service';
 import type { QuizLibrary } from './quizzes/quiz-library';
 import { quizStore } from './quizzes/quiz-store';
 import { quizzesRouter } from './quizzes/quizzes.router';
@@ -115,6 +117,7 @@ export function createApp({
   api.use('/shops', shopsRouter(dataSource));
   const attempts = new AttemptsService(dataSource, { quizzes, now, appBaseUrl: config.appBaseUrl });
   api.use(quizzesRouter(attempts));
+  api.use(gradingRouter(new GradingService(dataSource, { quizzes, attempts, mailer, appBaseUrl: config.appBaseUrl, now })));
   api.use(progressRouter(new ProgressService(dataSource, attempts, () => lessons.current().lessons.map((lesson) => lesson.meta.slug), now)));
   api.use(apiNotFound);
   app.use('/api', api);

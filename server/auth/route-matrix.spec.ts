@@ -27,6 +27,10 @@ interface Fixture {
   quizSlug: string;
   attemptId: string;
   attemptToSubmit: string;
+  /** A submitted attempt of the same apprentice: its written answer (pending) and an auto-graded one. */
+  submittedAttemptId: string;
+  writtenResponseId: string;
+  autoGradedResponseId: string;
   users: Record<Exclude<Actor, 'visitor'>, User>;
 }
 
@@ -138,6 +142,33 @@ const MATRIX: Record<string, Row> = {
   'GET /api/progress': { request: get('/api/progress'), expect: [401, 200, 403, 403, 403, 403] },
   // Own (apprentice), cohorts' (instructor), all (admin); never a shop owner's.
   'GET /api/learning-records': { request: get('/api/learning-records?limit=10'), expect: [401, 200, 200, 403, 200, 200] },
+
+  // Grading: instructors (their cohorts' apprentices only) and admins. The outsider's queue and
+  // regrade answer 200 with nothing of this apprentice in them; their answers are a 403.
+  'GET /api/grading/queue': { request: get('/api/grading/queue'), expect: [401, 403, 200, 403, 200, 200] },
+  'GET /api/grading/attempts/:id': { request: (f) => ({ method: 'get', path: `/api/grading/attempts/${f.submittedAttemptId}` }), expect: [401, 403, 200, 403, 200, 403] },
+  'PUT /api/grading/responses/:id': {
+    request: (f) => ({
+      method: 'put',
+      path: `/api/grading/responses/${f.writtenResponseId}`,
+      body: {
+        marks: [
+          { criterion: 'Says overlap of intervals is not the test', points: 1 },
+          { criterion: 'Names what cancels on the same bench and day', points: 1 },
+        ],
+        comment: 'Matrix grade.',
+      },
+    }),
+    expect: [401, 403, 200, 403, 200, 403],
+  },
+  'POST /api/grading/responses/:id/override': {
+    request: (f) => ({ method: 'post', path: `/api/grading/responses/${f.autoGradedResponseId}/override`, body: { points: 1, reason: 'Matrix override.' } }),
+    expect: [401, 403, 200, 403, 200, 403],
+  },
+  'POST /api/grading/regrade': {
+    request: (f) => ({ method: 'post', path: '/api/grading/regrade', body: { quizSlug: f.quizSlug, questionId: 'convert-reading' } }),
+    expect: [401, 403, 200, 403, 200, 200],
+  },
 };
 
 describe('route-by-role matrix', () => {
@@ -147,7 +178,7 @@ describe('route-by-role matrix', () => {
 
   beforeAll(async () => {
     dataSource = await migratedTestDataSource();
-    const quiz = fixtureQuiz({ lesson: `matrix-quiz-${randomUUID().slice(0, 8)}` });
+    const quiz = fixtureQuiz({ lesson: `matrix-quiz-${randomUUID().slice(0, 8)}`, attemptLimit: 4 });
     t = quizTestApp(dataSource, fixtureLibrary(quiz));
     const { owner, shop } = await createShopOwner(dataSource);
     const users = {
@@ -162,10 +193,18 @@ describe('route-by-role matrix', () => {
     await dataSource.getRepository(CohortMember).save({ cohortId: cohort.id, userId: users.apprentice.id });
     const apprentice = await signedIn(t.app, users.apprentice);
     const startAttempt = async () => (await apprentice.send('post', `/api/quizzes/${quiz.lesson}/attempts`)).body.id as string;
+    const submittedAttemptId = await startAttempt();
+    await apprentice.send('put', `/api/attempts/${submittedAttemptId}/answers/explain-overlap`, { answer: { text: 'The bands overlapping is not the test.' } });
+    await apprentice.send('post', `/api/attempts/${submittedAttemptId}/submit`);
+    const responseOf = async (questionId: string) =>
+      ((await dataSource.query('SELECT id FROM quiz_response WHERE attempt_id = $1 AND question_id = $2', [submittedAttemptId, questionId])) as Array<{ id: string }>)[0]!.id;
     fixture = {
       quizSlug: quiz.lesson,
       attemptId: await startAttempt(),
       attemptToSubmit: await startAttempt(),
+      submittedAttemptId,
+      writtenResponseId: await responseOf('explain-overlap'),
+      autoGradedResponseId: await responseOf('why-test-pressure'),
       cohortId: cohort.id,
       targetUserId: (await createUser(dataSource)).id,
       memberToAdd: (await createUser(dataSource)).id,

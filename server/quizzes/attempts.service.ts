@@ -299,6 +299,11 @@ export class AttemptsService {
     return view;
   }
 
+  /** The stored version id of each question of a quiz as it is now (for regrades). */
+  async currentVersions(slug: string): Promise<Map<string, string>> {
+    return this.versionsOf(slug, this.quiz(slug));
+  }
+
   /** The stored version of each question of a quiz (made when a definition is first served). */
   private async versionsOf(slug: string, loaded: LoadedQuiz): Promise<Map<string, string>> {
     const result = new Map<string, string>();
@@ -428,6 +433,8 @@ function questionResult(response: QuizResponse): QuestionResult {
     const marks = response.rubricMarks;
     if (marks) result.rubric = question.rubric.map((c) => ({ criterion: c.criterion, maxPoints: c.points, points: marks?.find((m) => m.criterion === c.criterion)?.points ?? null }));
     result.comment = response.graderComment;
+    // When the instructor graded it (the apprentice's notice that the final mark is in).
+    result.gradedAt = marks ? (response.gradedAt?.toISOString() ?? null) : null;
   }
   return result;
 }

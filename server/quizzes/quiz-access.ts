@@ -23,3 +23,25 @@ export async function mayViewAttemptsOf(dataSource: DataSource, viewer: User, ow
   );
   return rows.length > 0;
 }
+
+/**
+ * May `viewer` grade, override and regrade the answers of apprentice `ownerId`? An instructor of a
+ * cohort the apprentice is in, or an admin. Never the apprentice themself, never a shop owner.
+ */
+export async function mayGradeAttemptsOf(dataSource: DataSource, viewer: User, ownerId: string): Promise<boolean> {
+  if (viewer.role === 'admin') return true;
+  if (viewer.role !== 'instructor' || viewer.id === ownerId) return false;
+  return mayViewAttemptsOf(dataSource, viewer, ownerId);
+}
+
+/**
+ * The same rule as a SQL condition for lists (the grading queue, regrades): `userIdColumn` is an
+ * apprentice the viewer may grade. `$n` is the viewer's id, or null for an admin (everyone).
+ */
+export function gradableApprentices(viewer: User, userIdColumn: string, n: number): { sql: string; param: string | null } {
+  return {
+    sql: `($${n}::uuid IS NULL OR EXISTS (SELECT 1 FROM cohort gc JOIN cohort_member gm ON gm.cohort_id = gc.id
+            WHERE gc.instructor_id = $${n}::uuid AND gm.user_id = ${userIdColumn}))`,
+    param: viewer.role === 'admin' ? null : viewer.id,
+  };
+}

@@ -83,6 +83,8 @@ export interface QuestionResult {
   /** Written: the instructor's marks per criterion and comment, once graded. */
   rubric?: Array<{ criterion: string; points: number | null; maxPoints: number }>;
   comment?: string | null;
+  /** Written: when the instructor graded it (null while it waits). */
+  gradedAt?: string | null;
 }
 
 export interface AttemptView {
