@@ -12,11 +12,12 @@ import type { CohortMemberView } from '../../../shared/api/accounts';
 import { askToConfirm } from '../core/confirm-dialog';
 import { fieldError, submitForm } from '../core/form-errors';
 import { CohortsApi } from './cohorts-api';
+import { Gradebook } from './gradebook';
 
-/** `/cohorts/:id`: one cohort's apprentices; add one by e-mail, remove one. */
+/** `/cohorts/:id`: one cohort's gradebook and apprentices; add one by e-mail, remove one. */
 @Component({
   selector: 'fl-cohort-page',
-  imports: [DatePipe, MatButton, MatError, MatFormField, MatHint, MatInput, MatLabel, MatTableModule, ReactiveFormsModule, RouterLink],
+  imports: [DatePipe, Gradebook, MatButton, MatError, MatFormField, MatHint, MatInput, MatLabel, MatTableModule, ReactiveFormsModule, RouterLink],
   templateUrl: './cohort-page.html',
   styleUrls: ['../admin/admin-tables.scss', './cohorts.scss'],
   changeDetection: ChangeDetectionStrategy.OnPush,
@@ -27,6 +28,7 @@ export class CohortPage {
   private readonly injector = inject(Injector);
   private readonly formElement = viewChild<ElementRef<HTMLFormElement>>('formElement');
   private readonly formDirective = viewChild(FormGroupDirective);
+  private readonly gradebook = viewChild(Gradebook);
 
   /** The cohort's id, from the address. */
   readonly id = input.required<string>();
@@ -50,6 +52,7 @@ export class CohortPage {
         const email = this.form.getRawValue().email;
         const updated = await this.api.addMember(this.id(), email);
         this.cohort.set(updated);
+        this.gradebook()?.reload();
         // Through the directive, so the cleared field is not shown as a submitted, empty one.
         this.formDirective()?.resetForm();
         this.added.set(`${email} is in the cohort.`);
@@ -72,6 +75,7 @@ export class CohortPage {
     } finally {
       this.removing.set(null);
       this.cohort.reload();
+      this.gradebook()?.reload();
     }
   }
 }

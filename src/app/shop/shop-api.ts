@@ -2,12 +2,18 @@ import { httpResource, type HttpResourceRef } from '@angular/common/http';
 import { Injectable } from '@angular/core';
 
 import type { ShopView } from '../../../shared/api/accounts';
+import type { ShopProgress } from '../../../shared/api/gradebook';
 
-/** The shop owner's own shop (`GET /api/shops/mine`). */
+/** The shop owner's own shop (`GET /api/shops/mine`) and its apprentices' progress (`GET /api/shop/progress`). */
 @Injectable({ providedIn: 'root' })
 export class ShopApi {
   mine(): HttpResourceRef<ShopView | undefined> {
     return httpResource(() => '/api/shops/mine', { parse: parseShop });
+  }
+
+  /** Lessons finished, quizzes passed and last activity per apprentice: no answers, scores or comments. */
+  progress(): HttpResourceRef<ShopProgress | undefined> {
+    return httpResource(() => '/api/shop/progress', { parse: parseProgress });
   }
 }
 
@@ -17,4 +23,12 @@ function parseShop(raw: unknown): ShopView {
     throw new Error('The shop came back in an unexpected shape.');
   }
   return shop as ShopView;
+}
+
+function parseProgress(raw: unknown): ShopProgress {
+  const progress = raw as Partial<ShopProgress> | null;
+  if (!Array.isArray(progress?.apprentices) || typeof progress.lessonCount !== 'number' || typeof progress.quizCount !== 'number') {
+    throw new Error('The progress came back in an unexpected shape.');
+  }
+  return progress as ShopProgress;
 }

@@ -1,3 +1,4 @@
+import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject } from '@angular/core';
 import { MatButton } from '@angular/material/button';
 import { MatTableModule } from '@angular/material/table';
@@ -5,10 +6,14 @@ import { MatTableModule } from '@angular/material/table';
 import { problemMessage } from '../core/problem';
 import { ShopApi } from './shop-api';
 
-/** `/shop`: the shop owner's shop and its apprentices. Seats and invitations come later. */
+/**
+ * `/shop`: the shop owner's shop, its apprentices and their progress (read-only: lessons finished,
+ * quizzes passed, last activity; answers, scores and comments stay between apprentice and instructor).
+ * Seats and invitations come later.
+ */
 @Component({
   selector: 'fl-shop-page',
-  imports: [MatButton, MatTableModule],
+  imports: [DatePipe, MatButton, MatTableModule],
   template: `
     @if (shop.hasValue()) {
       @let current = shop.value();
@@ -45,6 +50,43 @@ import { ShopApi } from './shop-api';
           </tr>
         </table>
       </div>
+
+      <h2 id="progress-heading">Progress</h2>
+      <p class="lead">How far each apprentice has got. Answers, scores and instructors’ comments are not shown here.</p>
+      @if (progress.hasValue()) {
+        @let report = progress.value();
+        <div class="table-frame">
+          <table mat-table [dataSource]="report.apprentices" aria-labelledby="progress-heading">
+            <ng-container matColumnDef="displayName">
+              <th mat-header-cell *matHeaderCellDef>Name</th>
+              <th mat-cell *matCellDef="let apprentice" scope="row" class="mat-mdc-cell mdc-data-table__cell row-name">{{ apprentice.displayName }}</th>
+            </ng-container>
+            <ng-container matColumnDef="lessons">
+              <th mat-header-cell *matHeaderCellDef>Lessons finished</th>
+              <td mat-cell *matCellDef="let apprentice" class="figures">{{ apprentice.lessonsFinished }} of {{ report.lessonCount }}</td>
+            </ng-container>
+            <ng-container matColumnDef="quizzes">
+              <th mat-header-cell *matHeaderCellDef>Quizzes passed</th>
+              <td mat-cell *matCellDef="let apprentice" class="figures">{{ apprentice.quizzesPassed }} of {{ report.quizCount }}</td>
+            </ng-container>
+            <ng-container matColumnDef="lastActivity">
+              <th mat-header-cell *matHeaderCellDef>Last activity</th>
+              <td mat-cell *matCellDef="let apprentice" class="figures">
+                {{ apprentice.lastActivity ? (apprentice.lastActivity | date: 'yyyy-MM-dd') : 'None yet' }}
+              </td>
+            </ng-container>
+            <tr mat-header-row *matHeaderRowDef="progressColumns"></tr>
+            <tr mat-row *matRowDef="let row; columns: progressColumns"></tr>
+            <tr class="mat-row" *matNoDataRow>
+              <td class="mat-cell empty" [attr.colspan]="progressColumns.length">No apprentices are linked to your shop yet.</td>
+            </tr>
+          </table>
+        </div>
+      } @else if (progress.error()) {
+        <p role="alert">The progress did not load. <button matButton type="button" (click)="progress.reload()">Try again</button></p>
+      } @else {
+        <p role="status">Loading the progress…</p>
+      }
     } @else if (shop.error()) {
       <h1>My shop</h1>
       <p role="alert">{{ problem() }} <button matButton type="button" (click)="shop.reload()">Try again</button></p>
@@ -57,8 +99,11 @@ import { ShopApi } from './shop-api';
   changeDetection: ChangeDetectionStrategy.OnPush,
 })
 export class ShopPage {
-  protected readonly shop = inject(ShopApi).mine();
+  private readonly api = inject(ShopApi);
+  protected readonly shop = this.api.mine();
+  protected readonly progress = this.api.progress();
   protected readonly columns = ['displayName', 'email', 'verified'];
+  protected readonly progressColumns = ['displayName', 'lessons', 'quizzes', 'lastActivity'];
 
   protected problem(): string {
     return problemMessage(this.shop.error(), 'Your shop did not load.');
