@@ -252,7 +252,7 @@ describe('grading API', () => {
       if (q.kind === 'fresh') return { ...q, inputs: { ...q.inputs, toPressureDrop: { value: 25, unit: 'inH2O' } } };
       return q;
     });
-    library.quizzes.set(regradeSlug, loadedQuiz(corrected));
+    (library.quizzes as Map<string, ReturnType<typeof loadedQuiz>>).set(regradeSlug, loadedQuiz(corrected));
 
     const grader = await signedIn(t.app, instructor);
     const numeric = await grader.send('post', '/api/grading/regrade', { quizSlug: regradeSlug, questionId: 'convert-reading' });

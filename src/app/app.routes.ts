@@ -69,6 +69,12 @@ export const routes: Routes = [
     loadChildren: () => import('./cohorts/cohorts.routes').then((m) => m.cohortsRoutes),
   },
   {
+    path: 'grading',
+    data: { needsConnection: true },
+    canActivate: [roleGuard('instructor', 'admin')],
+    loadChildren: () => import('./grading/grading.routes').then((m) => m.gradingRoutes),
+  },
+  {
     path: 'progress',
     title: 'My progress',
     data: { needsConnection: true },

@@ -30,7 +30,10 @@ interface NavLink {
 // The pages each role works in, after the ones everybody has.
 const ROLE_LINKS: Readonly<Partial<Record<Role, readonly NavLink[]>>> = {
   admin: [{ path: '/admin', label: 'Admin' }],
-  instructor: [{ path: '/cohorts', label: 'Cohorts' }],
+  instructor: [
+    { path: '/cohorts', label: 'Cohorts' },
+    { path: '/grading', label: 'Grading' },
+  ],
   shop_owner: [{ path: '/shop', label: 'My shop' }],
 };
 
