@@ -76,6 +76,7 @@ export class AttemptsService {
         status: best?.passed ? 'passed' : graded.length > 0 ? 'not-yet-passed' : open ? 'in-progress' : 'not-started',
         best: best ? { attemptId: best.id, scorePercent: best.scorePercent ?? 0, passed: best.passed === true, provisional: best.pendingCount > 0 } : null,
         openAttempt: open ? { id: open.id, deadline: open.deadlineAt?.toISOString() ?? null } : null,
+        lastActivityAt: latestOf(mine.flatMap((a) => [a.startedAt, a.submittedAt])),
       });
     }
     return summaries;
@@ -440,3 +441,9 @@ function questionResult(response: QuizResponse): QuestionResult {
 }
 
 export type { QuizDefinition };
+
+/** The latest of some times, as ISO text (null when there is none). */
+function latestOf(times: ReadonlyArray<Date | null | undefined>): string | null {
+  const latest = Math.max(...times.map((t) => t?.getTime() ?? Number.NEGATIVE_INFINITY));
+  return Number.isFinite(latest) ? new Date(latest).toISOString() : null;
+}

@@ -41,6 +41,8 @@ export interface QuizSummary {
   best: { attemptId: string; scorePercent: number; passed: boolean; provisional: boolean } | null;
   /** An attempt started and not yet submitted, to resume. */
   openAttempt: { id: string; deadline: string | null } | null;
+  /** The latest start or submit of an attempt at this quiz (ISO time), or null. */
+  lastActivityAt: string | null;
 }
 
 /** A question as the apprentice answers it. */

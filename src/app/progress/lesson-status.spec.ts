@@ -14,6 +14,7 @@ const quiz = (over: Partial<QuizSummary>): QuizSummary => ({
   status: 'not-started',
   best: null,
   openAttempt: null,
+  lastActivityAt: null,
   ...over,
 });
 const opened = { slug: 'pressure-drop', openedAt: '2026-03-02T09:00:00.000Z', finishedAt: null, lastActivityAt: '2026-03-02T09:10:00.000Z' };
@@ -49,5 +50,14 @@ describe('lesson status in words', () => {
     expect(rows.map((r) => r.slug)).toEqual(['pressure-drop', 'volume-flow']);
     expect(rows[0]).toMatchObject({ reading: 'Opened', quiz: 'Passed', best: '100 %', attempts: '1 of 3', lastActivity: opened.lastActivityAt });
     expect(rows[1]).toMatchObject({ reading: 'Not opened', quiz: 'No quiz', best: '—', attempts: '—', lastActivity: null });
+  });
+
+  it('takes a row’s last activity from its reading or its quiz, whichever is later', () => {
+    const outline = [{ slug: 'pressure-drop', order: 2, title: 'Pressure drop and restriction' }] as LessonOutline[];
+    const later = '2026-03-03T08:00:00.000Z';
+    const rows = progressRows(outline, { lessons: [opened], quizzes: [quiz({ attemptsUsed: 1, lastActivityAt: later })], lastActivity: later });
+    expect(rows[0]?.lastActivity).toBe(later);
+    const quizOnly = progressRows(outline, { lessons: [], quizzes: [quiz({ attemptsUsed: 1, lastActivityAt: later })], lastActivity: later });
+    expect(quizOnly[0]?.lastActivity).toBe(later);
   });
 });

@@ -73,7 +73,13 @@ export function progressRows(outline: readonly LessonOutline[], progress: MyProg
         quizTone: quiz?.status ?? 'not-started',
         best: best ? `${formatPercent(best.scorePercent)}${best.provisional ? ' (waiting for grading)' : ''}` : '—',
         attempts: quiz ? `${quiz.attemptsUsed} of ${quiz.attemptLimit}` : '—',
-        lastActivity: read?.lastActivityAt ?? null,
+        lastActivity: latest(read?.lastActivityAt ?? null, quiz?.lastActivityAt ?? null),
       };
     });
+}
+
+/** The later of two ISO times, either of which may be missing. */
+function latest(a: string | null, b: string | null): string | null {
+  if (a === null || b === null) return a ?? b;
+  return Date.parse(a) >= Date.parse(b) ? a : b;
 }
