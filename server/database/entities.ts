@@ -3,6 +3,7 @@ import { AuditEntry } from '../admin/audit-entry.entity';
 import { AccountToken } from '../auth/account-token.entity';
 import { CohortMember } from '../cohorts/cohort-member.entity';
 import { Cohort } from '../cohorts/cohort.entity';
+import { LearnerStanding, QuizStanding } from '../gradebook/standing.entity';
 import { OutboxMessage } from '../mail/outbox-message.entity';
 import { LearningRecord } from '../progress/learning-record.entity';
 import { LessonProgress } from '../progress/lesson-progress.entity';
@@ -16,4 +17,5 @@ import { SeedRun } from './seed-run.entity';
 export const entities = [
   SeedRun, User, Shop, Cohort, CohortMember, AccountToken, OutboxMessage, AuditEntry,
   QuestionVersion, QuizAttempt, QuizResponse, LessonProgress, LearningRecord,
+  QuizStanding, LearnerStanding,
 ];

@@ -256,6 +256,33 @@ describe('gradebook API', () => {
     expect((await new Browser(t.app).get(`/api/cohorts/${cohortId}/gradebook.csv`)).status).toBe(401);
   });
 
+  it('follows the real attempt flow: start, autosave and submit move the standing the triggers keep', async () => {
+    const user = await member(cohortId, 'Zed Live', 1);
+    const browser = await signedIn(t.app, user);
+    const row = async () => (await book('?q=Zed%20Live')).rows[0]!;
+    const start = await browser.send('post', `/api/quizzes/${quizB}/attempts`);
+    expect(start.status).toBe(201);
+    expect((await row()).quizzes[quizB]).toEqual({ status: 'in-progress', bestPercent: null, attemptsUsed: 1, failedAttempts: 0 });
+    expect((await row()).lastActivity).toBe(clock.toISOString());
+    const started = clock.getTime();
+    try {
+      clock.setTime(started + 60_000);
+      const saved = await browser.send('put', `/api/attempts/${start.body.id}/answers/why-test-pressure`, { answer: { choiceId: 'b' } });
+      expect(saved.status).toBe(200);
+      const written = await browser.send('put', `/api/attempts/${start.body.id}/answers/explain-overlap`, { answer: { text: 'Compare the difference with its own uncertainty.' } });
+      expect(written.status).toBe(200);
+      expect((await row()).lastActivity).toBe(new Date(started + 60_000).toISOString());
+      clock.setTime(started + 120_000);
+      expect((await browser.send('post', `/api/attempts/${start.body.id}/submit`)).status).toBe(200);
+      const after = await row();
+      // The written answer waits for an instructor.
+      expect(after.quizzes[quizB]).toMatchObject({ status: 'waiting-for-grading', attemptsUsed: 1, failedAttempts: 0 });
+      expect(after.lastActivity).toBe(new Date(started + 120_000).toISOString());
+    } finally {
+      clock.setTime(started);
+    }
+  });
+
   it('shows a shop owner their own shop’s apprentices: completion, quizzes passed, last activity and nothing more', async () => {
     const { owner, shop } = await createShopOwner(dataSource, 'Larkfield Flow Lab');
     const { shop: otherShop } = await createShopOwner(dataSource, 'Another shop');

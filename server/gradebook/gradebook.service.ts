@@ -76,16 +76,14 @@ export class GradebookService {
   async page(cohort: Cohort, query: GradebookQuery): Promise<GradebookPage> {
     const columns = this.columns();
     const params = new Params();
-    const sql = this.bookSql(this.cohortMembers(cohort.id, params), columns, query, params);
-    const limit = params.add(query.pageSize, 'int');
-    const offset = params.add((query.page - 1) * query.pageSize, 'int');
-    const rows: BookRow[] = await this.dataSource.query(`${sql} LIMIT ${limit} OFFSET ${offset}`, params.values);
+    const sql = this.bookSql(this.cohortMembers(cohort.id, params), columns, query, params, { limit: query.pageSize, offset: (query.page - 1) * query.pageSize });
+    const rows: BookRow[] = await this.dataSource.query(sql, params.values);
     let total = rows[0]?.total ?? 0;
     if (rows.length === 0 && query.page > 1) {
       // Past the last page: count what the filters match (the window count needs a row to ride on).
       const countParams = new Params();
       const countSql = this.bookSql(this.cohortMembers(cohort.id, countParams), columns, query, countParams);
-      const [{ n }] = await this.dataSource.query(`SELECT count(*)::int AS n FROM (${countSql}) AS book`, countParams.values);
+      const [{ n }] = await this.dataSource.query(`SELECT count(*)::int AS n FROM (${countSql}) AS counted`, countParams.values);
       total = n;
     }
     return {
@@ -157,37 +155,51 @@ export class GradebookService {
 
   /**
    * The gradebook's query over the apprentices `members` selects (user_id, display_name, email,
-   * added_at). Only whitelisted pieces are spliced in; every value is a parameter.
+   * added_at). It reads the standing the triggers keep (migration 1796400000000): one learner row
+   * per apprentice, plus the sorted or filtered quiz's row, to sort, filter and count; then the
+   * per-quiz cells only for the rows of the page. Only whitelisted pieces are spliced in; every
+   * value is a parameter.
    */
-  private bookSql(members: string, columns: GradebookQuizColumn[], filters: Filters, params: Params): string {
+  private bookSql(members: string, columns: GradebookQuizColumn[], filters: Filters, params: Params, paging?: { limit: number; offset: number }): string {
     const quizSlugs = params.add(columns.map((c) => c.slug), 'text[]');
-    const lessonSlugs = params.add([...this.options.lessonSlugs()], 'text[]');
     const now = params.add(this.now(), 'timestamptz');
     const idleDays = params.add(NEEDS_HELP_IDLE_DAYS, 'int');
     const failedLimit = params.add(NEEDS_HELP_FAILED_ATTEMPTS, 'int');
 
+    const sortQuiz = filters.sort.startsWith('quiz:') ? filters.sort.slice('quiz:'.length) : undefined;
+    if (sortQuiz !== undefined && !columns.some((c) => c.slug === sortQuiz)) {
+      throw HttpProblem.badRequest('The query is not valid.', [{ field: 'sort', message: `There is no quiz "${sortQuiz}".` }]);
+    }
+    if (filters.quiz !== undefined && !columns.some((c) => c.slug === filters.quiz)) {
+      throw HttpProblem.badRequest('The query is not valid.', [{ field: 'quiz', message: `There is no quiz "${filters.quiz}".` }]);
+    }
+    const statusQuiz = filters.quiz ?? sortQuiz;
+
+    const joins: string[] = [];
+    const extra: string[] = [];
+    if (sortQuiz !== undefined) {
+      joins.push(`LEFT JOIN quiz_standing sq ON sq.user_id = m.user_id AND sq.quiz_slug = ${params.add(sortQuiz, 'text')}`);
+      extra.push('sq.best_percent AS sort_best');
+    }
     const where: string[] = [];
     if (filters.q) {
       const pattern = params.add(`%${filters.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`, 'text');
       where.push(`(b.display_name ILIKE ${pattern} OR b.email ILIKE ${pattern})`);
     }
-    const sortQuiz = filters.sort.startsWith('quiz:') ? filters.sort.slice('quiz:'.length) : undefined;
-    if (sortQuiz !== undefined && !columns.some((c) => c.slug === sortQuiz)) {
-      throw HttpProblem.badRequest('The query is not valid.', [{ field: 'sort', message: `There is no quiz "${sortQuiz}".` }]);
-    }
-    const statusQuiz = filters.quiz ?? sortQuiz;
-    if (filters.quiz !== undefined && !columns.some((c) => c.slug === filters.quiz)) {
-      throw HttpProblem.badRequest('The query is not valid.', [{ field: 'quiz', message: `There is no quiz "${filters.quiz}".` }]);
-    }
     if (filters.status === 'needs-help') {
       where.push('b.needs_help');
     } else if (filters.status && (GRADEBOOK_QUIZ_STATUSES as readonly string[]).includes(filters.status)) {
-      const status = params.add(filters.status, 'text');
-      where.push(
-        statusQuiz !== undefined
-          ? `coalesce(b.cells -> ${params.add(statusQuiz, 'text')} ->> 's', 'not-started') = ${status}`
-          : `EXISTS (SELECT 1 FROM unnest(${quizSlugs}) AS s(slug) WHERE coalesce(b.cells -> s.slug ->> 's', 'not-started') = ${status})`,
-      );
+      const status = () => params.add(filters.status, 'text');
+      if (statusQuiz !== undefined && filters.status === 'not-started') {
+        where.push(`NOT EXISTS (SELECT 1 FROM quiz_standing fq WHERE fq.user_id = b.user_id AND fq.quiz_slug = ${params.add(statusQuiz, 'text')})`);
+      } else if (statusQuiz !== undefined) {
+        // An inner join on (quiz, status): the index gives just the matching rows.
+        joins.push(`JOIN quiz_standing fq ON fq.user_id = m.user_id AND fq.quiz_slug = ${params.add(statusQuiz, 'text')} AND fq.status = ${status()}`);
+      } else if (filters.status === 'not-started') {
+        where.push(`(SELECT count(*) FROM quiz_standing qs WHERE qs.user_id = b.user_id AND qs.quiz_slug = ANY(${quizSlugs})) < cardinality(${quizSlugs})`);
+      } else {
+        where.push(`EXISTS (SELECT 1 FROM quiz_standing qs WHERE qs.user_id = b.user_id AND qs.quiz_slug = ANY(${quizSlugs}) AND qs.status = ${status()})`);
+      }
     }
 
     const dir = filters.dir === 'desc' ? 'DESC' : 'ASC';
@@ -195,7 +207,7 @@ export class GradebookService {
     const nulls = dir === 'ASC' ? 'NULLS FIRST' : 'NULLS LAST';
     const sortKey =
       sortQuiz !== undefined
-        ? `(b.cells -> ${params.add(sortQuiz, 'text')} ->> 'b')::float8 ${dir} ${nulls}`
+        ? `b.sort_best ${dir} ${nulls}`
         : {
             name: `lower(b.display_name) ${dir}`,
             lessons: `b.lessons_finished ${dir}, b.quizzes_passed ${dir}`,
@@ -204,57 +216,35 @@ export class GradebookService {
             needsHelp: `b.needs_help ${dir}`,
           }[filters.sort as 'name'];
     if (!sortKey) throw HttpProblem.badRequest('The query is not valid.', [{ field: 'sort', message: 'Not a column of the gradebook.' }]);
+    const order = `${sortKey}, lower(b.display_name), b.user_id`;
+    const page = paging ? `LIMIT ${params.add(paging.limit, 'int')} OFFSET ${params.add(paging.offset, 'int')}` : '';
 
     return `
       WITH members AS (${members}),
-      attempts AS (
-        SELECT a.user_id, a.quiz_slug,
-               count(*)::int AS used,
-               max(a.score_percent) FILTER (WHERE a.status = 'submitted') AS best,
-               coalesce(bool_or(a.passed) FILTER (WHERE a.status = 'submitted'), false) AS passed,
-               count(*) FILTER (WHERE a.status = 'submitted')::int AS graded,
-               count(*) FILTER (WHERE a.status = 'submitted' AND a.pending_count > 0)::int AS pending,
-               count(*) FILTER (WHERE a.status = 'submitted' AND a.pending_count = 0 AND a.passed IS NOT TRUE)::int AS failed,
-               max(greatest(a.started_at, a.submitted_at, answered.at)) AS last_at
-          FROM members m
-          JOIN quiz_attempt a ON a.user_id = m.user_id AND a.quiz_slug = ANY(${quizSlugs})
-          -- A submitted attempt's answers are no later than its submit; only open ones need a look.
-          LEFT JOIN LATERAL (SELECT max(r.answered_at) AS at FROM quiz_response r WHERE a.status = 'open' AND r.attempt_id = a.id) answered ON true
-         GROUP BY a.user_id, a.quiz_slug
-      ),
-      quiz_rows AS (
-        SELECT c.user_id,
-               jsonb_object_agg(c.quiz_slug, jsonb_build_object(
-                 's', CASE WHEN c.passed THEN 'passed' WHEN c.pending > 0 THEN 'waiting-for-grading' WHEN c.graded > 0 THEN 'not-yet-passed' ELSE 'in-progress' END,
-                 'b', c.best, 'u', c.used, 'f', c.failed)) AS cells,
-               count(*) FILTER (WHERE c.passed)::int AS passed,
-               max(c.failed) AS max_failed,
-               max(c.last_at) AS last_at
-          FROM attempts c GROUP BY c.user_id
-      ),
-      lesson_rows AS (
-        SELECT lp.user_id,
-               count(*) FILTER (WHERE lp.finished_at IS NOT NULL AND lp.lesson_slug = ANY(${lessonSlugs}))::int AS finished,
-               max(lp.last_activity_at) AS last_at
-          FROM members m JOIN lesson_progress lp ON lp.user_id = m.user_id
-         GROUP BY lp.user_id
-      ),
       book AS (
         SELECT m.user_id, m.display_name, m.email, m.added_at,
-               coalesce(q.cells, '{}'::jsonb) AS cells,
-               coalesce(q.passed, 0) AS quizzes_passed,
-               coalesce(l.finished, 0) AS lessons_finished,
-               greatest(q.last_at, l.last_at) AS last_activity,
-               (coalesce(q.max_failed, 0) >= ${failedLimit}
-                 OR coalesce(greatest(q.last_at, l.last_at), m.added_at) < ${now} - make_interval(days => ${idleDays})) AS needs_help
+               coalesce(ls.lessons_finished, 0) AS lessons_finished,
+               coalesce(ls.quizzes_passed, 0) AS quizzes_passed,
+               ls.last_activity_at AS last_activity,
+               (coalesce(ls.max_failed_attempts, 0) >= ${failedLimit}
+                 OR coalesce(ls.last_activity_at, m.added_at) < ${now} - make_interval(days => ${idleDays})) AS needs_help
+               ${extra.map((e) => `, ${e}`).join('')}
           FROM members m
-          LEFT JOIN quiz_rows q ON q.user_id = m.user_id
-          LEFT JOIN lesson_rows l ON l.user_id = m.user_id
+          LEFT JOIN learner_standing ls ON ls.user_id = m.user_id
+          ${joins.join('\n          ')}
+      ),
+      page AS (
+        SELECT b.*, count(*) OVER ()::int AS total
+          FROM book b
+         ${where.length ? `WHERE ${where.join(' AND ')}` : ''}
+         ORDER BY ${order}
+         ${page}
       )
-      SELECT b.*, count(*) OVER ()::int AS total
-        FROM book b
-       ${where.length ? `WHERE ${where.join(' AND ')}` : ''}
-       ORDER BY ${sortKey}, lower(b.display_name), b.user_id`;
+      SELECT b.*,
+             coalesce((SELECT jsonb_object_agg(qs.quiz_slug, jsonb_build_object('s', qs.status, 'b', qs.best_percent, 'u', qs.attempts_used, 'f', qs.failed_attempts))
+                         FROM quiz_standing qs WHERE qs.user_id = b.user_id AND qs.quiz_slug = ANY(${quizSlugs})), '{}'::jsonb) AS cells
+        FROM page b
+       ORDER BY ${order}`;
   }
 
   private toRow(row: BookRow, columns: GradebookQuizColumn[]): GradebookRow {
