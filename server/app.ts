@@ -28,6 +28,8 @@ import { requestLog } from './http/request-log';
 import { LessonStore } from './lessons/lesson-store';
 import { lessonsRouter } from './lessons/lessons.router';
 import { Mailer, smtpTransport } from './mail/mailer';
+import { notificationsRouter } from './notifications/notifications.router';
+import { NotificationsService } from './notifications/notifications.service';
 import { progressRouter } from './progress/progress.router';
 import { ProgressService } from './progress/progress.service';
 import { AttemptsService } from './quizzes/attempts.service';
@@ -118,6 +120,7 @@ export function createApp({
   const attempts = new AttemptsService(dataSource, { quizzes, now, appBaseUrl: config.appBaseUrl });
   api.use(quizzesRouter(attempts));
   api.use(gradingRouter(new GradingService(dataSource, { quizzes, attempts, mailer, appBaseUrl: config.appBaseUrl, now })));
+  api.use(notificationsRouter(new NotificationsService(dataSource)));
   api.use(progressRouter(new ProgressService(dataSource, attempts, () => lessons.current().lessons.map((lesson) => lesson.meta.slug), now)));
   api.use(apiNotFound);
   app.use('/api', api);

@@ -140,6 +140,9 @@ const MATRIX: Record<string, Row> = {
     expect: [401, 404, 403, 403, 403, 403],
   },
   'GET /api/progress': { request: get('/api/progress'), expect: [401, 200, 403, 403, 403, 403] },
+  // One's own notifications, whatever the role.
+  'GET /api/notifications': { request: get('/api/notifications'), expect: [401, 200, 200, 200, 200, 200] },
+  'POST /api/notifications/read': { request: () => ({ method: 'post', path: '/api/notifications/read', body: { all: true } }), expect: [401, 200, 200, 200, 200, 200] },
   // Own (apprentice), cohorts' (instructor), all (admin); never a shop owner's.
   'GET /api/learning-records': { request: get('/api/learning-records?limit=10'), expect: [401, 200, 200, 403, 200, 200] },
 

@@ -5,6 +5,7 @@ import { CohortMember } from '../cohorts/cohort-member.entity';
 import { Cohort } from '../cohorts/cohort.entity';
 import { LearnerStanding, QuizStanding } from '../gradebook/standing.entity';
 import { OutboxMessage } from '../mail/outbox-message.entity';
+import { Notification } from '../notifications/notification.entity';
 import { LearningRecord } from '../progress/learning-record.entity';
 import { LessonProgress } from '../progress/lesson-progress.entity';
 import { QuestionVersion } from '../quizzes/question-version.entity';
@@ -17,5 +18,5 @@ import { SeedRun } from './seed-run.entity';
 export const entities = [
   SeedRun, User, Shop, Cohort, CohortMember, AccountToken, OutboxMessage, AuditEntry,
   QuestionVersion, QuizAttempt, QuizResponse, LessonProgress, LearningRecord,
-  QuizStanding, LearnerStanding,
+  QuizStanding, LearnerStanding, Notification,
 ];

@@ -1,6 +1,7 @@
 import type { DataSource } from 'typeorm';
 
 import type { GradedResponse, GradingAttempt, GradingQueue, RegradeResult } from '../../shared/api/grading';
+import type { NotificationsPage } from '../../shared/api/notifications';
 import type { AttemptView } from '../../shared/api/quizzes';
 import type { User } from '../accounts/user.entity';
 import { Cohort } from '../cohorts/cohort.entity';
@@ -193,6 +194,19 @@ describe('grading API', () => {
     expect(mails[0].text_body).toContain('2.5 of 3 points');
     expect(mails[0].text_body).toContain(`/course/${slug}/quiz?attempt=${attempt.id}`);
 
+    // And in the app: one unread notification, linking to the result (same transaction as the marks).
+    const notices = (await browser.get('/api/notifications')).body as NotificationsPage;
+    expect(notices.unread).toBe(1);
+    expect(notices.items).toEqual([
+      expect.objectContaining({
+        kind: 'answer-graded',
+        title: 'Your written answer is graded: Fixture: flow at test pressure',
+        body: 'Question 5: 2.5 of 3 points. Attempt 1 scores 77.3 % (not passed yet).',
+        link: `/course/${slug}/quiz?attempt=${attempt.id}`,
+        readAt: null,
+      }),
+    ]);
+
     // An xAPI "answered" statement for the graded answer.
     const [{ n }] = await dataSource.query(`SELECT count(*)::int AS n FROM learning_record WHERE attempt_id = $1 AND verb = 'answered' AND statement->'result'->'score'->>'raw' = '2.5'`, [attempt.id]);
     expect(n).toBe(1);
@@ -225,6 +239,11 @@ describe('grading API', () => {
       points: 2,
       override: { points: 2, reason: 'Choice d was ambiguous in this version; full marks.' },
     });
+
+    const notices = (await browser.get('/api/notifications')).body as NotificationsPage;
+    expect(notices.items.map((n) => [n.kind, n.body])).toEqual([
+      ['answer-overridden', expect.stringContaining('now 2 of 2 points. Reason: Choice d was ambiguous in this version; full marks.')],
+    ]);
 
     const audit = await dataSource.query(`SELECT actor_id, target_id, detail FROM audit_entry WHERE action = 'quiz.answer-overridden' AND detail->>'responseId' = $1`, [id]);
     expect(audit).toHaveLength(1);
@@ -282,6 +301,12 @@ describe('grading API', () => {
 
     const result = (await browser.get(`/api/attempts/${attempt.id}`)).body as AttemptView;
     expect(result.questions.find((q) => q.id === 'convert-reading')!.result).toMatchObject({ status: 'incorrect', key: { value: 280, unit: 'cfm' } });
+    // Each regrade that changed the score told the apprentice, newest first.
+    const notices = (await browser.get('/api/notifications')).body as NotificationsPage;
+    expect(notices.items.map((n) => [n.kind, n.body])).toEqual([
+      ['answer-regraded', expect.stringMatching(/^Attempt 1 was 36\.4 % and is now 9\.1 %\. /)],
+      ['answer-regraded', expect.stringMatching(/^Attempt 1 was 54\.5 % and is now 36\.4 %\. /)],
+    ]);
     expect((await grader.send('post', '/api/grading/regrade', { quizSlug: regradeSlug, questionId: 'explain-overlap' })).status).toBe(409);
     expect((await grader.send('post', '/api/grading/regrade', { quizSlug: regradeSlug, questionId: 'no-such' })).status).toBe(404);
     const audit = await dataSource.query(`SELECT count(*)::int AS n FROM audit_entry WHERE action = 'quiz.question-regraded' AND detail->>'quiz' = $1`, [regradeSlug]);

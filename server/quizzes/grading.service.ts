@@ -18,6 +18,7 @@ import { recordAudit } from '../admin/audit-log';
 import { HttpProblem } from '../http/problem';
 import type { Mailer } from '../mail/mailer';
 import { answerGradedMail } from '../mail/templates/answer-graded';
+import { notify } from '../notifications/notifications.service';
 import { LearningRecord } from '../progress/learning-record.entity';
 import { learningStatements } from '../progress/learning-statements';
 import { rescoreAttempt, type AttemptsService } from './attempts.service';
@@ -175,6 +176,13 @@ export class GradingService {
       const attempt = await rescoreAttempt(manager, found.attemptId);
       const response = (await manager.getRepository(QuizResponse).findOneBy({ id: found.id }))!;
       await this.recordAnswered(manager, attempt, response, gradedAt);
+      await notify(manager, {
+        userId: attempt.userId,
+        kind: 'answer-graded',
+        title: `Your written answer is graded: ${this.quizTitle(attempt.quizSlug)}`,
+        body: `Question ${response.position + 1}: ${points} of ${max} points. ${scoreLine(attempt)}`,
+        link: attemptPath(attempt),
+      });
       return { response, attempt };
     });
     await this.notifyGraded(attempt, response);
@@ -214,6 +222,13 @@ export class GradingService {
         },
       });
       const response = (await manager.getRepository(QuizResponse).findOneBy({ id: found.id }))!;
+      await notify(manager, {
+        userId: attempt.userId,
+        kind: 'answer-overridden',
+        title: `Your instructor changed a mark: ${this.quizTitle(attempt.quizSlug)}`,
+        body: `Question ${response.position + 1}: now ${points} of ${response.maxPoints} points. Reason: ${body.reason} ${scoreLine(attempt)}`,
+        link: attemptPath(attempt),
+      });
       return { response, attempt };
     });
     return gradedResponse(response, attempt);
@@ -293,6 +308,13 @@ export class GradingService {
             old: { percent: old.scorePercent ?? 0, passed: old.passed === true },
             new: { percent: now.scorePercent ?? 0, passed: now.passed === true },
           });
+          await notify(manager, {
+            userId: now.userId,
+            kind: 'answer-regraded',
+            title: `A corrected answer key changed your score: ${this.quizTitle(quizSlug)}`,
+            body: `Attempt ${now.number} was ${percentText(old.scorePercent)} and is now ${percentText(now.scorePercent)}. ${scoreLine(now)}`,
+            link: attemptPath(now),
+          });
         }
       }
       await recordAudit(manager, {
@@ -335,7 +357,7 @@ export class GradingService {
   private async notifyGraded(attempt: QuizAttempt, response: QuizResponse): Promise<void> {
     const [user] = await this.dataSource.query('SELECT email, display_name FROM user_account WHERE id = $1', [attempt.userId]);
     if (!user) return;
-    const link = `${this.options.appBaseUrl}/course/${encodeURIComponent(attempt.quizSlug)}/quiz?attempt=${attempt.id}`;
+    const link = `${this.options.appBaseUrl}${attemptPath(attempt)}`;
     this.options.mailer.sendInBackground(
       { to: user.email as string, userId: attempt.userId },
       answerGradedMail({
@@ -394,6 +416,21 @@ function regradeInputs(storedDefinition: FreshNumbersQuestion['inputs'], current
     if (!isDrawnInput(value) && !wasDrawn) inputs[name] = value;
   }
   return inputs as EngineInputs;
+}
+
+/** The attempt's result page in the app. */
+function attemptPath(attempt: QuizAttempt): string {
+  return `/course/${encodeURIComponent(attempt.quizSlug)}/quiz?attempt=${attempt.id}`;
+}
+
+/** The attempt's score in one sentence, for a notification. */
+function scoreLine(attempt: QuizAttempt): string {
+  const verdict = attempt.pendingCount > 0 ? `${attempt.pendingCount} more waiting for grading` : attempt.passed ? 'passed' : 'not passed yet';
+  return `Attempt ${attempt.number} scores ${percentText(attempt.scorePercent)} (${verdict}).`;
+}
+
+function percentText(percent: number | null): string {
+  return `${Math.round((percent ?? 0) * 10) / 10} %`;
 }
 
 function roundPoints(points: number): number {
