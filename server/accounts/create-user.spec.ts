@@ -65,4 +65,19 @@ describe('creating an account from the command line (createVerifiedUser)', () =>
       createVerifiedUser({ dataSource, hasher }, { email: uniqueEmail('inst'), displayName: 'Inst', role: 'instructor', shopName: 'Stray Shop', password }),
     ).rejects.toThrow(/Only a shop owner/);
   });
+
+  it('puts an apprentice in the existing shop of the name given, and refuses an unknown or ambiguous name', async () => {
+    const shopName = `Join Test Flow ${uniqueEmail('x').slice(0, 12)}`;
+    const owner = await createVerifiedUser({ dataSource, hasher }, { email: uniqueEmail('owner'), displayName: 'Join Owner', role: 'shop_owner', shopName, password });
+    const apprentice = await createVerifiedUser({ dataSource, hasher }, { email: uniqueEmail('app'), displayName: 'Join Apprentice', role: 'apprentice', shopName, password });
+    expect(apprentice.shopId).toBe(owner.shopId);
+    const browser = await signedIn(accountsTestApp(dataSource).app, owner, password);
+    expect((await browser.get('/api/shops/mine')).body.apprentices).toEqual([expect.objectContaining({ id: apprentice.id })]);
+
+    const lost = uniqueEmail('lost');
+    await expect(createVerifiedUser({ dataSource, hasher }, { email: lost, displayName: 'Lost', role: 'apprentice', shopName: 'No Such Shop 7', password })).rejects.toThrow(/no shop named "No Such Shop 7"/);
+    expect(await dataSource.query('SELECT id FROM user_account WHERE email = $1', [lost])).toEqual([]);
+    await createVerifiedUser({ dataSource, hasher }, { email: uniqueEmail('owner'), displayName: 'Twin Owner', role: 'shop_owner', shopName, password });
+    await expect(createVerifiedUser({ dataSource, hasher }, { email: uniqueEmail('app'), displayName: 'Torn', role: 'apprentice', shopName, password })).rejects.toThrow(/More than one shop/);
+  });
 });

@@ -12,7 +12,8 @@ export class CreateUserRefused extends Error {}
 /**
  * Creates a verified account of any role for an operator (`cli.js create-user`): the way a deployment
  * gets its first administrator, since nobody can sign up as one. The same field and password rules as
- * sign-up apply; a shop owner gets the named shop; the audit log records it with no actor (the CLI).
+ * sign-up apply; a shop owner gets the named shop, an apprentice joins the existing shop of that
+ * name (until seats let owners invite them); the audit log records it with no actor (the CLI).
  */
 export async function createVerifiedUser(
   deps: { dataSource: DataSource; hasher: PasswordHasher; now?: () => Date },
@@ -38,6 +39,13 @@ export async function createVerifiedUser(
         const shop = await manager.save(manager.create(Shop, { name: request.shopName, ownerId: user.id }));
         await manager.update(User, { id: user.id }, { shopId: shop.id });
         user.shopId = shop.id;
+      }
+      if (request.role === 'apprentice' && request.shopName) {
+        const shops = await manager.getRepository(Shop).find({ where: { name: request.shopName }, take: 2 });
+        if (shops.length === 0) throw new CreateUserRefused(`There is no shop named "${request.shopName}"; nothing was changed.`);
+        if (shops.length > 1) throw new CreateUserRefused(`More than one shop is named "${request.shopName}"; nothing was changed.`);
+        await manager.update(User, { id: user.id }, { shopId: shops[0]!.id });
+        user.shopId = shops[0]!.id;
       }
       await recordAudit(manager, { actorId: null, targetId: user.id, action: 'account.created', detail: { role: request.role, by: 'cli' } });
       return user;

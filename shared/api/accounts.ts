@@ -26,14 +26,16 @@ export type SignUpRequest = z.infer<typeof signUpSchema>;
 
 /**
  * `cli.js create-user`: an operator creates a verified account of any role, with the sign-up rules
- * for each field; a shop owner names their shop, nobody else may.
+ * for each field; a shop owner names their new shop, an apprentice may name an existing shop to join.
  */
 export const createUserSchema = z
   .object({ email, displayName, role: z.enum(ROLES), password: newPassword, shopName: z.string().trim().min(2).max(120).optional() })
   .strict()
   .superRefine((value, ctx) => {
     if (value.role === 'shop_owner' && !value.shopName) ctx.addIssue({ code: 'custom', path: ['shopName'], message: 'A shop owner needs a shop: give --shop "Shop name".' });
-    if (value.role !== 'shop_owner' && value.shopName) ctx.addIssue({ code: 'custom', path: ['shopName'], message: 'Only a shop owner gets a shop: leave out --shop.' });
+    if ((value.role === 'instructor' || value.role === 'admin') && value.shopName) {
+      ctx.addIssue({ code: 'custom', path: ['shopName'], message: 'Only a shop owner (a new shop) or an apprentice (an existing shop to join) takes --shop: leave it out.' });
+    }
   });
 export type CreateUserRequest = z.infer<typeof createUserSchema>;
 
