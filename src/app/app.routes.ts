@@ -82,6 +82,13 @@ export const routes: Routes = [
     loadComponent: () => import('./progress/progress-page').then((m) => m.ProgressPage),
   },
   {
+    path: 'notifications',
+    title: 'Notifications',
+    data: { needsConnection: true },
+    canActivate: [signedInGuard],
+    loadComponent: () => import('./notifications/notifications-page').then((m) => m.NotificationsPage),
+  },
+  {
     path: 'shop',
     title: 'My shop',
     data: { needsConnection: true },

@@ -21,6 +21,9 @@ const icons: Readonly<Record<string, string>> = {
   offline:
     `<svg viewBox="0 0 24 24" ${stroke}><path d="M2.5 9a14 14 0 0 1 19 0M5.8 12.5a9.5 9.5 0 0 1 12.4 0M9 16a5 5 0 0 1 6 0"/>` +
     '<path d="M12 19.5v.01M3.5 3.5l17 17"/></svg>',
+  bell:
+    `<svg viewBox="0 0 24 24" ${stroke}><path d="M6 16.5V11a6 6 0 0 1 12 0v5.5l1.5 2h-15z"/>` +
+    '<path d="M10 21h4"/></svg>',
   caution:
     `<svg viewBox="0 0 24 24" ${stroke}><path d="M12 3.5L2.5 20h19z"/><path d="M12 10v4.5M12 17.5v.01"/></svg>`,
 };

@@ -1,4 +1,5 @@
 import { BreakpointObserver } from '@angular/cdk/layout';
+import { NgTemplateOutlet } from '@angular/common';
 import { ChangeDetectionStrategy, Component, computed, inject, linkedSignal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { MatButton, MatIconButton } from '@angular/material/button';
@@ -11,6 +12,7 @@ import { filter, map } from 'rxjs';
 import type { Role } from '../../../shared/api/accounts';
 import { AuthService } from '../core/auth.service';
 import { ConnectivityService } from '../core/connectivity.service';
+import { UnreadNotifications } from '../core/unread-notifications';
 
 import { NeedsConnection } from './needs-connection';
 
@@ -49,6 +51,7 @@ const ROLE_LINKS: Readonly<Partial<Record<Role, readonly NavLink[]>>> = {
     MatSidenavContent,
     MatToolbar,
     NeedsConnection,
+    NgTemplateOutlet,
     RouterLink,
     RouterLinkActive,
     RouterOutlet,
@@ -65,6 +68,12 @@ export class AppShell {
   private readonly router = inject(Router);
   protected readonly auth = inject(AuthService);
   protected readonly online = inject(ConnectivityService).online;
+  protected readonly unread = inject(UnreadNotifications).unread;
+  /** The bell's name says the count; the figure on it is for the eye only. */
+  protected readonly bellLabel = computed(() => {
+    const count = this.unread();
+    return count === 0 ? 'Notifications' : `Notifications: ${count} unread`;
+  });
 
   /** Whether the page on screen works only with the server (its route says `needsConnection`). */
   private readonly pageNeedsConnection = toSignal(
