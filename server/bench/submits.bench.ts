@@ -18,6 +18,8 @@
  * checked afterwards in the database (status, points, graded responses, learning records); a failed
  * or unpersisted submit is reported and fails the run, never counted as done.
  */
+import { writeFileSync } from 'node:fs';
+import { Session } from 'node:inspector';
 import { availableParallelism } from 'node:os';
 import { performance } from 'node:perf_hooks';
 
@@ -161,7 +163,9 @@ export async function submitsBench(dataSource: DataSource, options: SubmitsBench
   console.log(`  prepared: ${whole(wanted)} attempts started and 6 answers autosaved each (AttemptsService) in ${((performance.now() - started) / 1000).toFixed(1)} s`);
 
   const since = new Date();
+  const profiler = await startProfile();
   const window = await submitAll(service, queues, seconds);
+  await profiler?.stop();
   const rate = window.done.length / window.seconds;
   const sorted = [...window.latenciesMs].sort((a, b) => a - b);
   console.log(
@@ -190,4 +194,26 @@ export async function submitsBench(dataSource: DataSource, options: SubmitsBench
   const ratio = rate / pg.tps;
   console.log(`  submits/s ≥ ${GOAL} × pgbench TPS: ${rate.toFixed(1)} / ${pg.tps.toFixed(1)} = ${ratio.toFixed(2)}× — ${verdict(complete && ratio >= GOAL)}${complete ? '' : ' (not every submit was graded and persisted)'}`);
   if (!complete) process.exitCode = 1;
+}
+
+/**
+ * With BENCH_CPU_PROFILE=<file>, the timed window's Node CPU profile (a .cpuprofile file for Chrome's
+ * DevTools): where a submit spends its time on this side of the database.
+ */
+async function startProfile(): Promise<{ stop: () => Promise<void> } | null> {
+  const file = process.env['BENCH_CPU_PROFILE'];
+  if (!file) return null;
+  const session = new Session();
+  session.connect();
+  const post = (method: string) => new Promise<unknown>((resolve, reject) => session.post(method, (err, result) => (err ? reject(err) : resolve(result))));
+  await post('Profiler.enable');
+  await post('Profiler.start');
+  return {
+    stop: async () => {
+      const { profile } = (await post('Profiler.stop')) as { profile: object };
+      writeFileSync(file, JSON.stringify(profile));
+      session.disconnect();
+      console.log(`  CPU profile of the window: ${file}`);
+    },
+  };
 }

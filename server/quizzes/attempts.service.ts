@@ -1,16 +1,16 @@
 import { randomInt } from 'node:crypto';
 
-import type { DataSource, EntityManager } from 'typeorm';
+import { In, type DataSource, type EntityManager } from 'typeorm';
 
 import type { AnswerValue, AttemptQuestion, AttemptView, QuestionResult, QuizSummary } from '../../shared/api/quizzes';
 import { answerUnits, validateResponse, type ResponseValue } from '../../shared/quiz/answers';
-import type { QuestionDefinition, QuizDefinition } from '../../shared/quiz/definition';
+import type { Step } from '../../shared/airflow';
+import type { NumericQuestion, QuestionDefinition, QuizDefinition } from '../../shared/quiz/definition';
 import { choiceOrder, drawFresh, interpolateStem, questionSeed, runCheck } from '../../shared/quiz/draw';
 import { gradeResponse, toleranceText } from '../../shared/quiz/grade';
 import type { User } from '../accounts/user.entity';
 import { HttpProblem } from '../http/problem';
 import { learningStatements } from '../progress/learning-statements';
-import { LearningRecord } from '../progress/learning-record.entity';
 import { QuestionVersion, type QuestionHtml } from './question-version.entity';
 import { mayTakeQuiz, mayViewAttemptsOf } from './quiz-access';
 import { QuizAttempt } from './quiz-attempt.entity';
@@ -27,6 +27,8 @@ export interface AttemptsServiceOptions {
   readonly appBaseUrl: string;
 }
 
+const MAX_CACHED_VERSIONS = 10_000;
+
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /**
@@ -36,6 +38,8 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
  */
 export class AttemptsService {
   private readonly versionIds = new Map<string, string>();
+  /** Stored question versions by id: a version never changes once written, so it is read once. */
+  private readonly versions = new Map<string, QuestionVersion>();
   private readonly now: () => Date;
   private readonly newSeed: () => number;
 
@@ -161,8 +165,9 @@ export class AttemptsService {
       if (!attempt) throw HttpProblem.notFound(`There is no attempt "${attemptId}".`);
       if (attempt.status !== 'open') throw HttpProblem.conflict('This attempt is submitted; answers can no longer change.');
       if (this.expired(attempt)) return 'expired' as const;
-      const response = await manager.getRepository(QuizResponse).findOne({ where: { attemptId, questionId }, relations: { questionVersion: true } });
+      const response = await manager.getRepository(QuizResponse).findOneBy({ attemptId, questionId });
       if (!response) throw HttpProblem.notFound(`This attempt has no question "${questionId}".`);
+      await this.withVersions(manager, [response]);
       let answer: ResponseValue | null = null;
       if (raw !== null && raw !== undefined) {
         const checked = validateResponse(response.questionVersion!.definition, raw);
@@ -183,8 +188,10 @@ export class AttemptsService {
 
   /** Final and idempotent: the first submit grades; a repeat or a concurrent one returns the same result. */
   async submit(user: User, attemptId: string): Promise<AttemptView> {
-    await this.attemptFor(user, attemptId, 'answer');
-    await this.submitLocked(attemptId);
+    if (!UUID.test(attemptId)) throw HttpProblem.notFound(`There is no attempt "${attemptId}".`);
+    // The grading's own rows when this call graded it; a repeat (or the loser of a race) reads them.
+    const graded = await this.submitLocked(attemptId, user);
+    if (graded) return this.render(graded.attempt, graded.responses);
     const attempt = (await this.dataSource.getRepository(QuizAttempt).findOneBy({ id: attemptId }))!;
     return this.render(attempt);
   }
@@ -213,18 +220,25 @@ export class AttemptsService {
   }
 
   /** Grades the attempt once: the row lock makes every other submit wait, then find it graded. */
-  private async submitLocked(attemptId: string): Promise<void> {
-    await this.dataSource.transaction(async (manager) => {
+  /** The graded attempt and its responses, or null when it was not open (graded before, or by a concurrent call). */
+  /** `owner`: the apprentice submitting, checked on the locked row (anyone else's attempt is a 403). */
+  private async submitLocked(attemptId: string, owner?: User): Promise<{ attempt: QuizAttempt; responses: QuizResponse[] } | null> {
+    return this.dataSource.transaction(async (manager) => {
       const attempt = await manager.getRepository(QuizAttempt).findOne({ where: { id: attemptId }, lock: { mode: 'pessimistic_write' } });
-      if (!attempt || attempt.status !== 'open') return;
+      if (owner) {
+        if (!attempt) throw HttpProblem.notFound(`There is no attempt "${attemptId}".`);
+        if (attempt.userId !== owner.id) throw HttpProblem.forbidden('This attempt belongs to someone else.');
+      }
+      if (!attempt || attempt.status !== 'open') return null;
       const now = this.now();
       const submittedAt = attempt.deadlineAt && now > attempt.deadlineAt ? attempt.deadlineAt : now;
-      await this.grade(manager, attempt, submittedAt);
+      const responses = await this.grade(manager, attempt, submittedAt, owner?.displayName);
+      return { attempt, responses };
     });
   }
 
-  private async grade(manager: EntityManager, attempt: QuizAttempt, submittedAt: Date): Promise<void> {
-    const responses = await manager.getRepository(QuizResponse).find({ where: { attemptId: attempt.id }, relations: { questionVersion: true }, order: { position: 'ASC' } });
+  private async grade(manager: EntityManager, attempt: QuizAttempt, submittedAt: Date, displayName?: string): Promise<QuizResponse[]> {
+    const responses = await this.responsesOf(manager, attempt.id);
     let points = 0;
     let pending = 0;
     for (const response of responses) {
@@ -235,11 +249,6 @@ export class AttemptsService {
       response.withinTolerance = graded.withinTolerance ?? null;
       response.answerInKeyUnit = graded.answerInKeyUnit ?? null;
       response.gradedAt = submittedAt;
-      await manager.update(
-        QuizResponse,
-        { id: response.id },
-        { points: response.points, status: response.status, withinTolerance: response.withinTolerance, answerInKeyUnit: response.answerInKeyUnit, gradedAt: submittedAt },
-      );
       points += response.overridePoints ?? graded.points;
       if (graded.status === 'pending') pending++;
     }
@@ -250,27 +259,49 @@ export class AttemptsService {
     attempt.scorePercent = scorePercent;
     attempt.passed = passes(points, attempt.maxPoints, attempt.passMark);
     attempt.pendingCount = pending;
-    await manager.update(
-      QuizAttempt,
-      { id: attempt.id },
-      { status: 'submitted', submittedAt, points, scorePercent, passed: attempt.passed, pendingCount: pending },
-    );
-    const user = await manager.query('SELECT display_name FROM user_account WHERE id = $1', [attempt.userId]);
+    const name = displayName ?? (await manager.query('SELECT display_name FROM user_account WHERE id = $1', [attempt.userId]))[0]?.display_name ?? '';
     const quiz = this.options.quizzes().quizzes.get(attempt.quizSlug)?.definition;
     const statements = learningStatements({
       baseUrl: this.options.appBaseUrl,
-      user: { id: attempt.userId, name: user[0]?.display_name ?? '' },
+      user: { id: attempt.userId, name },
       quiz: { slug: attempt.quizSlug, title: quiz?.title ?? attempt.quizSlug },
       attempt,
       responses,
     });
-    await manager.save(statements.map(({ verb, statement }) => manager.create(LearningRecord, { userId: attempt.userId, attemptId: attempt.id, verb, statement, storedAt: submittedAt })));
+    // The grades, the xAPI statements and the attempt's score in one statement: a submit is the hot
+    // path of a class taking a quiz. The attempt's gradebook trigger fires at its end, and sees it all.
+    await manager.query(
+      `WITH graded AS (
+         UPDATE quiz_response AS r
+            SET points = g.points, status = g.status::quiz_response_status, within_tolerance = g.within_tolerance,
+                answer_in_key_unit = g.answer_in_key_unit, graded_at = $2
+           FROM jsonb_to_recordset($3::jsonb) AS g(id uuid, points double precision, status text, within_tolerance boolean, answer_in_key_unit double precision)
+          WHERE r.id = g.id AND r.attempt_id = $1
+       ), recorded AS (
+         INSERT INTO learning_record (user_id, attempt_id, verb, statement, stored_at)
+         SELECT $4, $1, s.verb, s.statement, $2 FROM jsonb_to_recordset($5::jsonb) AS s(verb text, statement jsonb)
+       )
+       UPDATE quiz_attempt SET status = 'submitted', submitted_at = $2, points = $6, score_percent = $7, passed = $8, pending_count = $9 WHERE id = $1`,
+      [
+        attempt.id,
+        submittedAt,
+        JSON.stringify(responses.map((r) => ({ id: r.id, points: r.points, status: r.status, within_tolerance: r.withinTolerance, answer_in_key_unit: r.answerInKeyUnit }))),
+        attempt.userId,
+        JSON.stringify(statements),
+        points,
+        scorePercent,
+        attempt.passed,
+        pending,
+      ],
+    );
+    return responses;
   }
 
   /** The attempt for the browser: questions as asked, and after grading, the result that teaches. */
-  private async render(attempt: QuizAttempt): Promise<AttemptView> {
+  private async render(attempt: QuizAttempt, known?: QuizResponse[]): Promise<AttemptView> {
     const loaded = this.options.quizzes().quizzes.get(attempt.quizSlug);
-    const responses = await this.dataSource.getRepository(QuizResponse).find({ where: { attemptId: attempt.id }, relations: { questionVersion: true }, order: { position: 'ASC' } });
+    const responses =
+      known ?? (await this.responsesOf(this.dataSource.manager, attempt.id));
     const graded = attempt.status === 'submitted';
     const view: AttemptView = {
       id: attempt.id,
@@ -298,6 +329,23 @@ export class AttemptsService {
       };
     }
     return view;
+  }
+
+  /** An attempt's responses in order, each with its question version (from memory when read before). */
+  private async responsesOf(manager: EntityManager, attemptId: string): Promise<QuizResponse[]> {
+    const responses = await manager.getRepository(QuizResponse).find({ where: { attemptId }, order: { position: 'ASC' } });
+    return this.withVersions(manager, responses);
+  }
+
+  private async withVersions(manager: EntityManager, responses: QuizResponse[]): Promise<QuizResponse[]> {
+    const missing = [...new Set(responses.map((r) => r.questionVersionId).filter((id) => !this.versions.has(id)))];
+    if (missing.length > 0) {
+      // A bound on memory: versions in use are few (questions × their corrections); start afresh past it.
+      if (this.versions.size + missing.length > MAX_CACHED_VERSIONS) this.versions.clear();
+      for (const version of await manager.getRepository(QuestionVersion).findBy({ id: In(missing) })) this.versions.set(version.id, version);
+    }
+    for (const response of responses) response.questionVersion = this.versions.get(response.questionVersionId)!;
+    return responses;
   }
 
   /** The stored version id of each question of a quiz as it is now (for regrades). */
@@ -424,8 +472,7 @@ function questionResult(response: QuizResponse): QuestionResult {
     if (response.answerInKeyUnit !== null) result.answerInKeyUnit = response.answerInKeyUnit;
     if (question.kind === 'fresh') result.steps = response.drawn?.steps ?? [];
     else {
-      const run = runCheck(question);
-      result.steps = run.ok ? run.steps : [];
+      result.steps = checkSteps(response.questionVersion!.id, question);
     }
   }
   if (question.kind === 'written') {
@@ -438,6 +485,22 @@ function questionResult(response: QuizResponse): QuestionResult {
     result.gradedAt = marks ? (response.gradedAt?.toISOString() ?? null) : null;
   }
   return result;
+}
+
+/**
+ * The worked steps of a numeric question's `check` line: the same for every attempt at one version,
+ * so they are computed once per version (a version never changes; the map holds one entry per
+ * question version in use).
+ */
+const checkStepsByVersion = new Map<string, Step[]>();
+function checkSteps(versionId: string, question: NumericQuestion): Step[] {
+  let steps = checkStepsByVersion.get(versionId);
+  if (!steps) {
+    const run = runCheck(question);
+    steps = run.ok ? run.steps : [];
+    checkStepsByVersion.set(versionId, steps);
+  }
+  return steps;
 }
 
 export type { QuizDefinition };
