@@ -33,7 +33,10 @@ export function createUserByCli(role: Role, options: { displayName?: string; sho
   if (options.shop) args.push('--shop', options.shop);
   const stdout = execFileSync('node', args, {
     cwd: root,
-    env: { ...process.env, DATABASE_URL: process.env['DATABASE_URL'] ?? '', FLOWLORE_NEW_USER_PASSWORD: E2E_PASSWORD, LOG_LEVEL: 'warn' },
+    // Test accounts get a fast hash (bcrypt cost 4, as in the server tests; allowed only with
+    // NODE_ENV=test): at the production cost each account took seconds of a browser test's time.
+    // Hashing at the real cost is tested in server/auth.
+    env: { ...process.env, DATABASE_URL: process.env['DATABASE_URL'] ?? '', FLOWLORE_NEW_USER_PASSWORD: E2E_PASSWORD, LOG_LEVEL: 'warn', NODE_ENV: 'test', PASSWORD_HASH_COST: '4' },
     encoding: 'utf8',
     stdio: ['ignore', 'pipe', 'pipe'],
   });

@@ -1,3 +1,5 @@
+import { randomUUID } from 'node:crypto';
+
 import { expect, test as setup } from '@playwright/test';
 
 import { authFile, createUserByCli, E2E_PASSWORD } from './accounts-cli';
@@ -9,7 +11,8 @@ import { authFile, createUserByCli, E2E_PASSWORD } from './accounts-cli';
 const people = [
   { role: 'admin', displayName: 'Avery Admin-E2E' },
   { role: 'instructor', displayName: 'Indra Instructor-E2E' },
-  { role: 'shop_owner', displayName: 'Sasha Owner-E2E', shop: 'E2E Flow Works' },
+  // A shop name of this run's own: apprentices join a shop by its name (cli.js create-user --shop).
+  { role: 'shop_owner', displayName: 'Sasha Owner-E2E', shop: `E2E Flow Works ${randomUUID().slice(0, 8)}` },
 ] as const;
 
 for (const person of people) {

@@ -94,6 +94,7 @@ describe('grading API', () => {
       attemptId: earlyAttempt.id,
       quiz: { slug, title: 'Fixture: flow at test pressure' },
       questionId: 'explain-overlap',
+      questionNumber: 5,
       questionVersion: 1,
       submittedAt: '2026-03-02T09:00:00.000Z',
       answerText: 'Overlap is not the test. <b>Compare</b> the difference with its own uncertainty.',

@@ -47,6 +47,7 @@ interface QueueRow {
   display_name: string;
   quiz_slug: string;
   question_id: string;
+  position: number;
   version: number;
   submitted_at: Date;
   html: QuestionVersion['html'];
@@ -78,7 +79,7 @@ export class GradingService {
     const where = `r.status = 'pending' AND r.override_points IS NULL AND a.status = 'submitted' AND ${scope.sql}`;
     const rows: QueueRow[] = await this.dataSource.query(
       `SELECT r.id AS response_id, a.id AS attempt_id, a.number AS attempt_number, a.user_id, u.display_name,
-              a.quiz_slug, r.question_id, v.version, a.submitted_at, v.html, v.definition, r.answer, r.max_points
+              a.quiz_slug, r.question_id, r.position, v.version, a.submitted_at, v.html, v.definition, r.answer, r.max_points
          FROM quiz_response r
          JOIN quiz_attempt a ON a.id = r.attempt_id
          JOIN user_account u ON u.id = a.user_id
@@ -104,6 +105,7 @@ export class GradingService {
       apprentice: { id: row.user_id, displayName: row.display_name },
       quiz: { slug: row.quiz_slug, title: this.quizTitle(row.quiz_slug) },
       questionId: row.question_id,
+      questionNumber: row.position + 1,
       questionVersion: row.version,
       submittedAt: new Date(row.submitted_at).toISOString(),
       stemHtml: row.html.stem,

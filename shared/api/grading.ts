@@ -15,6 +15,8 @@ export interface GradingQueueItem {
   apprentice: { id: string; displayName: string };
   quiz: { slug: string; title: string };
   questionId: string;
+  /** The question's place in the quiz, from 1. */
+  questionNumber: number;
   /** The question's version the apprentice was given. */
   questionVersion: number;
   submittedAt: string;
