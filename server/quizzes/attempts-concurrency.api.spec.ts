@@ -47,6 +47,28 @@ describe('quiz attempts under concurrency', () => {
     expect(times).toBe(1);
   });
 
+  it('saves racing a submit: the grade is always that of the answer stored, and a save after the submit is refused', async () => {
+    // 301.2 cfm is right (the fixture's key), 150 cfm wrong: whichever the attempt holds when it is
+    // graded must be the one graded, whether the save landed just before the submit or not at all.
+    const browser = await signedIn(t.app, await createUser(dataSource));
+    await browser.fetchCsrf();
+    for (let round = 0; round < 3; round++) {
+      // One race per attempt the quiz allows.
+      const view = (await browser.send('post', `/api/quizzes/${slug}/attempts`)).body as AttemptView;
+      await browser.send('put', `/api/attempts/${view.id}/answers/convert-reading`, { answer: { value: 150, unit: 'cfm' } });
+      const [save, submit] = await Promise.all([
+        browser.send('put', `/api/attempts/${view.id}/answers/convert-reading`, { answer: { value: 301.2, unit: 'cfm' } }),
+        browser.send('post', `/api/attempts/${view.id}/submit`),
+      ]);
+      expect(submit.status).toBe(200);
+      expect([200, 409]).toContain(save.status);
+      const [stored] = await dataSource.query(`SELECT answer, status FROM quiz_response WHERE attempt_id = $1 AND question_id = 'convert-reading'`, [view.id]);
+      expect(stored.status).toBe(stored.answer.value === 301.2 ? 'correct' : 'incorrect');
+      // A refused save left the earlier answer; an accepted one was graded.
+      expect(stored.answer.value).toBe(save.status === 200 ? 301.2 : 150);
+    }
+  });
+
   it('10 concurrent starts with 3 attempts left: exactly 3 attempts', async () => {
     const user = await createUser(dataSource);
     const browser = await signedIn(t.app, user);

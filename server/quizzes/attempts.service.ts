@@ -149,7 +149,7 @@ export class AttemptsService {
   async view(viewer: User, attemptId: string): Promise<AttemptView> {
     let attempt = await this.attemptFor(viewer, attemptId, 'view');
     if (attempt.status === 'open' && this.expired(attempt)) {
-      await this.submitLocked(attemptId);
+      await this.gradeOnce(attemptId);
       attempt = (await this.dataSource.getRepository(QuizAttempt).findOneBy({ id: attemptId }))!;
     }
     return this.render(attempt);
@@ -160,11 +160,17 @@ export class AttemptsService {
     await this.attemptFor(user, attemptId, 'answer');
     const savedAt = this.now();
     const result = await this.dataSource.transaction(async (manager) => {
-      // FOR SHARE: a submit (FOR UPDATE) waits for this save, and this save sees a finished submit.
-      const attempt = await manager.getRepository(QuizAttempt).findOne({ where: { id: attemptId }, lock: { mode: 'pessimistic_read' } });
+      // The attempt's answers version goes up with every save (the row stays locked until this
+      // commits): a submit that read the answers before waits for this, finds its version stale and
+      // reads again; one that wrote first leaves the status 'submitted' here, and the save is refused.
+      const [rows] = (await manager.query('UPDATE quiz_attempt SET answers_version = answers_version + 1 WHERE id = $1 RETURNING status, deadline_at', [attemptId])) as [
+        Array<{ status: string; deadline_at: Date | null }>,
+        number,
+      ];
+      const attempt = rows[0];
       if (!attempt) throw HttpProblem.notFound(`There is no attempt "${attemptId}".`);
       if (attempt.status !== 'open') throw HttpProblem.conflict('This attempt is submitted; answers can no longer change.');
-      if (this.expired(attempt)) return 'expired' as const;
+      if (attempt.deadline_at !== null && this.now().getTime() > attempt.deadline_at.getTime()) return 'expired' as const;
       const response = await manager.getRepository(QuizResponse).findOneBy({ attemptId, questionId });
       if (!response) throw HttpProblem.notFound(`This attempt has no question "${questionId}".`);
       await this.withVersions(manager, [response]);
@@ -180,7 +186,7 @@ export class AttemptsService {
       return answer;
     });
     if (result === 'expired') {
-      await this.submitLocked(attemptId);
+      await this.gradeOnce(attemptId);
       throw HttpProblem.conflict('The time for this attempt is up; the answers saved before it ended are graded.');
     }
     return { questionId, answer: result as AnswerValue | null, savedAt: savedAt.toISOString() };
@@ -190,7 +196,7 @@ export class AttemptsService {
   async submit(user: User, attemptId: string): Promise<AttemptView> {
     if (!UUID.test(attemptId)) throw HttpProblem.notFound(`There is no attempt "${attemptId}".`);
     // The grading's own rows when this call graded it; a repeat (or the loser of a race) reads them.
-    const graded = await this.submitLocked(attemptId, user);
+    const graded = await this.gradeOnce(attemptId, user);
     if (graded) return this.render(graded.attempt, graded.responses);
     const attempt = (await this.dataSource.getRepository(QuizAttempt).findOneBy({ id: attemptId }))!;
     return this.render(attempt);
@@ -202,7 +208,7 @@ export class AttemptsService {
       `SELECT id FROM quiz_attempt WHERE status = 'open' AND deadline_at < $1 AND ($2::uuid IS NULL OR user_id = $2)`,
       [this.now(), where.userId ?? null],
     );
-    for (const row of rows) await this.submitLocked(row.id);
+    for (const row of rows) await this.gradeOnce(row.id);
     return rows.length;
   }
 
@@ -219,26 +225,33 @@ export class AttemptsService {
     return attempt;
   }
 
-  /** Grades the attempt once: the row lock makes every other submit wait, then find it graded. */
-  /** The graded attempt and its responses, or null when it was not open (graded before, or by a concurrent call). */
-  /** `owner`: the apprentice submitting, checked on the locked row (anyone else's attempt is a 403). */
-  private async submitLocked(attemptId: string, owner?: User): Promise<{ attempt: QuizAttempt; responses: QuizResponse[] } | null> {
-    return this.dataSource.transaction(async (manager) => {
-      const attempt = await manager.getRepository(QuizAttempt).findOne({ where: { id: attemptId }, lock: { mode: 'pessimistic_write' } });
+  /**
+   * Grades the attempt once, in two round trips: read the attempt with its answers (one statement,
+   * one snapshot), grade them here, then write grades, xAPI statements and score in one statement
+   * that holds only while the attempt is still open at the answers version read. A concurrent save
+   * or submit makes it match nothing: read again (a submitted attempt → null, the caller reads it).
+   * `owner`: the apprentice submitting (anyone else's attempt is a 403).
+   */
+  private async gradeOnce(attemptId: string, owner?: User): Promise<{ attempt: QuizAttempt; responses: QuizResponse[] } | null> {
+    const manager = this.dataSource.manager;
+    for (;;) {
+      const rows = await manager.getRepository(QuizResponse).find({ where: { attemptId }, relations: { attempt: true }, order: { position: 'ASC' } });
+      const attempt = rows[0]?.attempt ?? (await manager.getRepository(QuizAttempt).findOneBy({ id: attemptId }));
       if (owner) {
         if (!attempt) throw HttpProblem.notFound(`There is no attempt "${attemptId}".`);
         if (attempt.userId !== owner.id) throw HttpProblem.forbidden('This attempt belongs to someone else.');
       }
       if (!attempt || attempt.status !== 'open') return null;
+      const responses = await this.withVersions(manager, rows);
+      for (const response of responses) delete response.attempt;
       const now = this.now();
       const submittedAt = attempt.deadlineAt && now > attempt.deadlineAt ? attempt.deadlineAt : now;
-      const responses = await this.grade(manager, attempt, submittedAt, owner?.displayName);
-      return { attempt, responses };
-    });
+      if (await this.grade(manager, attempt, responses, submittedAt, owner?.displayName)) return { attempt, responses };
+    }
   }
 
-  private async grade(manager: EntityManager, attempt: QuizAttempt, submittedAt: Date, displayName?: string): Promise<QuizResponse[]> {
-    const responses = await this.responsesOf(manager, attempt.id);
+  /** Grades the answers read and writes it all, if the attempt is still open at the version read; false when it was not. */
+  private async grade(manager: EntityManager, attempt: QuizAttempt, responses: QuizResponse[], submittedAt: Date, displayName?: string): Promise<boolean> {
     let points = 0;
     let pending = 0;
     for (const response of responses) {
@@ -268,20 +281,25 @@ export class AttemptsService {
       attempt,
       responses,
     });
-    // The grades, the xAPI statements and the attempt's score in one statement: a submit is the hot
-    // path of a class taking a quiz. The attempt's gradebook trigger fires at its end, and sees it all.
-    await manager.query(
-      `WITH graded AS (
+    // The attempt's score, the grades and the xAPI statements in one statement (a submit is the hot
+    // path of a class taking a quiz). The grades and statements are written only if the attempt row
+    // was updated (they join its RETURNING); its gradebook trigger fires at the end and sees it all.
+    const written = (await manager.query(
+      `WITH submitted AS (
+         UPDATE quiz_attempt SET status = 'submitted', submitted_at = $2, points = $6, score_percent = $7, passed = $8, pending_count = $9
+          WHERE id = $1 AND status = 'open' AND answers_version = $10
+         RETURNING id
+       ), graded AS (
          UPDATE quiz_response AS r
             SET points = g.points, status = g.status::quiz_response_status, within_tolerance = g.within_tolerance,
                 answer_in_key_unit = g.answer_in_key_unit, graded_at = $2
-           FROM jsonb_to_recordset($3::jsonb) AS g(id uuid, points double precision, status text, within_tolerance boolean, answer_in_key_unit double precision)
-          WHERE r.id = g.id AND r.attempt_id = $1
+           FROM submitted, jsonb_to_recordset($3::jsonb) AS g(id uuid, points double precision, status text, within_tolerance boolean, answer_in_key_unit double precision)
+          WHERE r.id = g.id AND r.attempt_id = submitted.id
        ), recorded AS (
          INSERT INTO learning_record (user_id, attempt_id, verb, statement, stored_at)
-         SELECT $4, $1, s.verb, s.statement, $2 FROM jsonb_to_recordset($5::jsonb) AS s(verb text, statement jsonb)
+         SELECT $4, submitted.id, s.verb, s.statement, $2 FROM submitted, jsonb_to_recordset($5::jsonb) AS s(verb text, statement jsonb)
        )
-       UPDATE quiz_attempt SET status = 'submitted', submitted_at = $2, points = $6, score_percent = $7, passed = $8, pending_count = $9 WHERE id = $1`,
+       SELECT id FROM submitted`,
       [
         attempt.id,
         submittedAt,
@@ -292,9 +310,10 @@ export class AttemptsService {
         scorePercent,
         attempt.passed,
         pending,
+        attempt.answersVersion,
       ],
-    );
-    return responses;
+    )) as Array<{ id: string }>;
+    return written.length === 1;
   }
 
   /** The attempt for the browser: questions as asked, and after grading, the result that teaches. */

@@ -35,6 +35,10 @@ export class QuizAttempt {
   @Column({ name: 'status', type: 'enum', enum: ATTEMPT_STATUSES, enumName: 'quiz_attempt_status', default: 'open' })
   status!: AttemptStatus;
 
+  /** Bumped by every autosave: a submit grades the answers only if none changed after it read them. */
+  @Column({ name: 'answers_version', type: 'integer', default: 0 })
+  answersVersion!: number;
+
   /** The quiz's pass mark (percent) when the attempt started. */
   @Column({ name: 'pass_mark', type: 'double precision' })
   passMark!: number;
