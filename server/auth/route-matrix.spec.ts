@@ -168,6 +168,7 @@ const MATRIX: Record<string, Row> = {
     request: (f) => ({ method: 'post', path: `/api/grading/responses/${f.autoGradedResponseId}/override`, body: { points: 1, reason: 'Matrix override.' } }),
     expect: [401, 403, 200, 403, 200, 403],
   },
+  'GET /api/grading/corrections': { request: get('/api/grading/corrections'), expect: [401, 403, 200, 403, 200, 200] },
   'POST /api/grading/regrade': {
     request: (f) => ({ method: 'post', path: '/api/grading/regrade', body: { quizSlug: f.quizSlug, questionId: 'convert-reading' } }),
     expect: [401, 403, 200, 403, 200, 200],

@@ -1,6 +1,6 @@
 import type { DataSource } from 'typeorm';
 
-import type { GradedResponse, GradingAttempt, GradingQueue, RegradeResult } from '../../shared/api/grading';
+import type { CorrectedQuestion, GradedResponse, GradingAttempt, GradingQueue, RegradeResult } from '../../shared/api/grading';
 import type { NotificationsPage } from '../../shared/api/notifications';
 import type { AttemptView } from '../../shared/api/quizzes';
 import type { User } from '../accounts/user.entity';
@@ -275,6 +275,15 @@ describe('grading API', () => {
     (library.quizzes as Map<string, ReturnType<typeof loadedQuiz>>).set(regradeSlug, loadedQuiz(corrected));
 
     const grader = await signedIn(t.app, instructor);
+    // The corrected questions are listed, with the answers to earlier versions in the instructor's cohorts.
+    const corrections = async (browser: Browser) => ((await browser.get('/api/grading/corrections')).body as CorrectedQuestion[]).filter((c) => c.quiz.slug === regradeSlug);
+    expect(await corrections(grader)).toEqual([
+      { quiz: { slug: regradeSlug, title: 'Regrade fixture' }, questionId: 'convert-reading', questionNumber: 3, currentVersion: 2, earlierAnswers: 1, lastRegradedAt: null },
+      { quiz: { slug: regradeSlug, title: 'Regrade fixture' }, questionId: 'fresh-conversion', questionNumber: 4, currentVersion: 2, earlierAnswers: 1, lastRegradedAt: null },
+    ]);
+    expect(await corrections(await signedIn(t.app, outsider))).toEqual([]);
+    expect((await browser.get('/api/grading/corrections')).status).toBe(403);
+
     const numeric = await grader.send('post', '/api/grading/regrade', { quizSlug: regradeSlug, questionId: 'convert-reading' });
     expect(numeric.status).toBe(200);
     const first = numeric.body as RegradeResult;
@@ -284,6 +293,10 @@ describe('grading API', () => {
       { apprentice: { id: user.id, displayName: 'Regraded Rae' }, attemptId: attempt.id, attemptNumber: 1, old: { percent: (100 * 6) / 11, passed: false }, new: { percent: (100 * 4) / 11, passed: false } },
     ]);
 
+    expect((await corrections(grader)).map((c) => [c.questionId, c.lastRegradedAt !== null])).toEqual([
+      ['convert-reading', true],
+      ['fresh-conversion', false],
+    ]);
     const fresh = (await grader.send('post', '/api/grading/regrade', { quizSlug: regradeSlug, questionId: 'fresh-conversion' })).body as RegradeResult;
     expect(fresh.changed.map((c) => [c.attemptId, c.new.percent])).toEqual([[attempt.id, (100 * 1) / 11]]);
     const [after] = await dataSource.query(`SELECT key, drawn, status FROM quiz_response WHERE attempt_id = $1 AND question_id = 'fresh-conversion'`, [attempt.id]);

@@ -32,6 +32,9 @@ export function gradingRouter(grading: GradingService): Router {
   router.post('/grading/responses/:id/override', graders, validateBody(overrideResponseSchema), async (req, res) => {
     privateJson(res, 200, await grading.override(signedInUser(req), String(req.params['id']), res.locals['body']));
   });
+  router.get('/grading/corrections', graders, async (req, res) => {
+    privateJson(res, 200, await grading.corrections(signedInUser(req)));
+  });
   router.post('/grading/regrade', graders, validateBody(regradeSchema), async (req, res) => {
     const body = res.locals['body'] as { quizSlug: string; questionId: string };
     privateJson(res, 200, await grading.regrade(signedInUser(req), body.quizSlug, body.questionId));

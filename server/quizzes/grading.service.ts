@@ -2,6 +2,7 @@ import type { DataSource, EntityManager } from 'typeorm';
 
 import type {
   AttemptScore,
+  CorrectedQuestion,
   GradedResponse,
   GradingAttempt,
   GradingQueue,
@@ -328,6 +329,47 @@ export class GradingService {
       changed.sort((a, b) => a.apprentice.displayName.localeCompare(b.apprentice.displayName) || a.attemptNumber - b.attemptNumber);
       return { quizSlug, questionId, currentVersion: version as number, responsesRegraded: rows.length, changed };
     });
+  }
+
+  /** Auto-graded questions with submitted answers (from the viewer's apprentices) to an earlier version than today's. */
+  async corrections(viewer: User): Promise<CorrectedQuestion[]> {
+    const current: Array<{ slug: string; title: string; questionId: string; number: number; versionId: string }> = [];
+    for (const [slug, loaded] of this.options.quizzes().quizzes) {
+      const versions = await this.options.attempts.currentVersions(slug);
+      loaded.definition.questions.forEach((question, i) => {
+        if (question.kind !== 'written') current.push({ slug, title: loaded.definition.title, questionId: question.id, number: i + 1, versionId: versions.get(question.id)! });
+      });
+    }
+    if (current.length === 0) return [];
+    const scope = gradableApprentices(viewer, 'a.user_id', 2);
+    const rows: Array<{ slug: string; question_id: string; version: number; answers: number; regraded_at: Date | null }> = await this.dataSource.query(
+      `SELECT c.slug, c.question_id, v.version, count(*)::int AS answers,
+              (SELECT max(e.at) FROM audit_entry e
+                WHERE e.action = 'quiz.question-regraded' AND e.detail->>'quiz' = c.slug AND e.detail->>'question' = c.question_id
+                  AND (e.detail->>'version')::int = v.version) AS regraded_at
+         FROM jsonb_to_recordset($1::jsonb) AS c(slug text, question_id text, version_id uuid)
+         JOIN question_version v ON v.id = c.version_id
+         -- Only the answers to earlier versions are read (by the responses' version index).
+         JOIN question_version earlier ON earlier.quiz_slug = c.slug AND earlier.question_id = c.question_id AND earlier.id <> c.version_id
+         JOIN quiz_response r ON r.question_version_id = earlier.id
+         JOIN quiz_attempt a ON a.id = r.attempt_id AND a.status = 'submitted'
+        WHERE ${scope.sql}
+        GROUP BY c.slug, c.question_id, v.version`,
+      [JSON.stringify(current.map((c) => ({ slug: c.slug, question_id: c.questionId, version_id: c.versionId }))), scope.param],
+    );
+    return rows
+      .map((row) => {
+        const question = current.find((c) => c.slug === row.slug && c.questionId === row.question_id)!;
+        return {
+          quiz: { slug: row.slug, title: question.title },
+          questionId: row.question_id,
+          questionNumber: question.number,
+          currentVersion: row.version,
+          earlierAnswers: row.answers,
+          lastRegradedAt: row.regraded_at ? new Date(row.regraded_at).toISOString() : null,
+        };
+      })
+      .sort((a, b) => a.quiz.title.localeCompare(b.quiz.title) || a.questionNumber - b.questionNumber);
   }
 
   /** The response, if the viewer may grade its apprentice: 404 for an unknown id, 403 for another instructor's apprentice. */

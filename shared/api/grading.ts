@@ -138,3 +138,21 @@ export interface RegradeResult {
   /** Attempts whose score changed, old → new. */
   changed: RegradeChange[];
 }
+
+/**
+ * `GET /api/grading/corrections`: auto-graded questions whose key or numbers were corrected since
+ * some of the caller's apprentices answered them (their stored answers belong to an earlier
+ * version), each with how many such answers there are. A regrade grades them against the current
+ * version; running it again changes nothing.
+ */
+export interface CorrectedQuestion {
+  quiz: { slug: string; title: string };
+  questionId: string;
+  /** The question's place in the quiz as it is now, from 1. */
+  questionNumber: number;
+  currentVersion: number;
+  /** Submitted answers to earlier versions, from the caller's apprentices. */
+  earlierAnswers: number;
+  /** The last regrade of this question against its current version (by anyone), or null. */
+  lastRegradedAt: string | null;
+}

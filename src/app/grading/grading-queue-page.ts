@@ -9,6 +9,7 @@ import { RouterLink } from '@angular/router';
 import type { GradingQueueItem } from '../../../shared/api/grading';
 import { fieldError, focusAfterRender, submitForm } from '../core/form-errors';
 import { QuizHtml } from '../quizzes/quiz-html';
+import { CorrectedQuestions } from './corrected-questions';
 import { GradingApi } from './grading-api';
 
 type MarksForm = FormGroup<{ marks: FormArray<FormControl<number | null>>; comment: FormControl<string> }>;
@@ -20,7 +21,7 @@ type MarksForm = FormGroup<{ marks: FormArray<FormControl<number | null>>; comme
  */
 @Component({
   selector: 'fl-grading-queue-page',
-  imports: [DatePipe, MatButton, MatError, MatFormField, MatHint, MatInput, MatLabel, QuizHtml, ReactiveFormsModule, RouterLink],
+  imports: [CorrectedQuestions, DatePipe, MatButton, MatError, MatFormField, MatHint, MatInput, MatLabel, QuizHtml, ReactiveFormsModule, RouterLink],
   templateUrl: './grading-queue-page.html',
   styleUrl: './grading.scss',
   changeDetection: ChangeDetectionStrategy.OnPush,
