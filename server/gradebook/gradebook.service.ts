@@ -35,7 +35,6 @@ interface BookRow {
   lessons_finished: number;
   last_activity: Date | null;
   needs_help: boolean;
-  total?: number;
 }
 
 /** Positional parameters for a query built from whitelisted pieces. */
@@ -77,15 +76,12 @@ export class GradebookService {
     const columns = this.columns();
     const params = new Params();
     const sql = this.bookSql(this.cohortMembers(cohort.id, params), columns, query, params, { limit: query.pageSize, offset: (query.page - 1) * query.pageSize });
+    // The count on its own: it reads only the ids (and names when searching) of the matching rows,
+    // while the page walks the sort's index and stops at its last row.
+    const countParams = new Params();
+    const countSql = this.bookSql(this.cohortMembers(cohort.id, countParams, query.q !== undefined && query.q !== ''), columns, query, countParams, 'count');
     const rows: BookRow[] = await this.dataSource.query(sql, params.values);
-    let total = rows[0]?.total ?? 0;
-    if (rows.length === 0 && query.page > 1) {
-      // Past the last page: count what the filters match (the window count needs a row to ride on).
-      const countParams = new Params();
-      const countSql = this.bookSql(this.cohortMembers(cohort.id, countParams), columns, query, countParams);
-      const [{ n }] = await this.dataSource.query(`SELECT count(*)::int AS n FROM (${countSql}) AS counted`, countParams.values);
-      total = n;
-    }
+    const [{ n: total }] = await this.dataSource.query(countSql, countParams.values);
     return {
       cohort: { id: cohort.id, name: cohort.name },
       quizzes: columns,
@@ -148,9 +144,12 @@ export class GradebookService {
     };
   }
 
-  private cohortMembers(cohortId: string, params: Params): string {
-    return `SELECT m.user_id, u.display_name, u.email, m.added_at FROM cohort_member m JOIN user_account u ON u.id = m.user_id
-             WHERE m.cohort_id = ${params.add(cohortId, 'uuid')}`;
+  /** The cohort's apprentices; without `names`, only ids and when they joined (enough to count). */
+  private cohortMembers(cohortId: string, params: Params, names = true): string {
+    return names
+      ? `SELECT m.user_id, u.display_name, u.email, m.added_at FROM cohort_member m JOIN user_account u ON u.id = m.user_id
+             WHERE m.cohort_id = ${params.add(cohortId, 'uuid')}`
+      : `SELECT m.user_id, m.added_at FROM cohort_member m WHERE m.cohort_id = ${params.add(cohortId, 'uuid')}`;
   }
 
   /**
@@ -160,11 +159,16 @@ export class GradebookService {
    * per-quiz cells only for the rows of the page. Only whitelisted pieces are spliced in; every
    * value is a parameter.
    */
-  private bookSql(members: string, columns: GradebookQuizColumn[], filters: Filters, params: Params, paging?: { limit: number; offset: number }): string {
-    const quizSlugs = params.add(columns.map((c) => c.slug), 'text[]');
-    const now = params.add(this.now(), 'timestamptz');
-    const idleDays = params.add(NEEDS_HELP_IDLE_DAYS, 'int');
-    const failedLimit = params.add(NEEDS_HELP_FAILED_ATTEMPTS, 'int');
+  private bookSql(members: string, columns: GradebookQuizColumn[], filters: Filters, params: Params, paging?: { limit: number; offset: number } | 'count'): string {
+    // Parameters are numbered when first used: the count leaves out pieces the page has.
+    const once = (add: () => string) => {
+      let placeholder: string | undefined;
+      return () => (placeholder ??= add());
+    };
+    const quizSlugs = once(() => params.add(columns.map((c) => c.slug), 'text[]'));
+    const now = once(() => params.add(this.now(), 'timestamptz'));
+    const idleDays = once(() => params.add(NEEDS_HELP_IDLE_DAYS, 'int'));
+    const failedLimit = once(() => params.add(NEEDS_HELP_FAILED_ATTEMPTS, 'int'));
 
     const sortQuiz = filters.sort.startsWith('quiz:') ? filters.sort.slice('quiz:'.length) : undefined;
     if (sortQuiz !== undefined && !columns.some((c) => c.slug === sortQuiz)) {
@@ -177,10 +181,14 @@ export class GradebookService {
 
     const joins: string[] = [];
     const extra: string[] = [];
-    if (sortQuiz !== undefined) {
+    // Sorted by the quiz whose status filters: the filter's own row carries the score (no second join).
+    const sortsByFilterRow =
+      sortQuiz !== undefined && statusQuiz === sortQuiz && filters.status !== undefined && filters.status !== 'not-started' && (GRADEBOOK_QUIZ_STATUSES as readonly string[]).includes(filters.status);
+    if (sortQuiz !== undefined && !sortsByFilterRow) {
       joins.push(`LEFT JOIN quiz_standing sq ON sq.user_id = m.user_id AND sq.quiz_slug = ${params.add(sortQuiz, 'text')}`);
       extra.push('sq.best_percent AS sort_best');
     }
+    if (sortsByFilterRow) extra.push('fq.best_percent AS sort_best');
     const where: string[] = [];
     if (filters.q) {
       const pattern = params.add(`%${filters.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`, 'text');
@@ -196,9 +204,9 @@ export class GradebookService {
         // An inner join on (quiz, status): the index gives just the matching rows.
         joins.push(`JOIN quiz_standing fq ON fq.user_id = m.user_id AND fq.quiz_slug = ${params.add(statusQuiz, 'text')} AND fq.status = ${status()}`);
       } else if (filters.status === 'not-started') {
-        where.push(`(SELECT count(*) FROM quiz_standing qs WHERE qs.user_id = b.user_id AND qs.quiz_slug = ANY(${quizSlugs})) < cardinality(${quizSlugs})`);
+        where.push(`(SELECT count(*) FROM quiz_standing qs WHERE qs.user_id = b.user_id AND qs.quiz_slug = ANY(${quizSlugs()})) < cardinality(${quizSlugs()})`);
       } else {
-        where.push(`EXISTS (SELECT 1 FROM quiz_standing qs WHERE qs.user_id = b.user_id AND qs.quiz_slug = ANY(${quizSlugs}) AND qs.status = ${status()})`);
+        where.push(`EXISTS (SELECT 1 FROM quiz_standing qs WHERE qs.user_id = b.user_id AND qs.quiz_slug = ANY(${quizSlugs()}) AND qs.status = ${status()})`);
       }
     }
 
@@ -217,33 +225,47 @@ export class GradebookService {
           }[filters.sort as 'name'];
     if (!sortKey) throw HttpProblem.badRequest('The query is not valid.', [{ field: 'sort', message: 'Not a column of the gradebook.' }]);
     const order = `${sortKey}, lower(b.display_name), b.user_id`;
-    const page = paging ? `LIMIT ${params.add(paging.limit, 'int')} OFFSET ${params.add(paging.offset, 'int')}` : '';
+    const page = paging && paging !== 'count' ? `LIMIT ${params.add(paging.limit, 'int')} OFFSET ${params.add(paging.offset, 'int')}` : '';
 
-    return `
+    // The learner's standing is read for every member only when a filter or the sort needs it;
+    // otherwise just for the rows of the page (the cost then grows with the page, not the cohort).
+    const learnerColumns = (ls: string, added: string) => `
+               coalesce(${ls}.lessons_finished, 0) AS lessons_finished,
+               coalesce(${ls}.quizzes_passed, 0) AS quizzes_passed,
+               ${ls}.last_activity_at AS last_activity,
+               (coalesce(${ls}.max_failed_attempts, 0) >= ${failedLimit()}
+                 OR coalesce(${ls}.last_activity_at, ${added}) < ${now()} - make_interval(days => ${idleDays()})) AS needs_help`;
+    const learnerFirst = filters.status === 'needs-help' || (sortQuiz === undefined && filters.sort !== 'name');
+
+    const book = (names: boolean) => `
       WITH members AS (${members}),
       book AS (
-        SELECT m.user_id, m.display_name, m.email, m.added_at,
-               coalesce(ls.lessons_finished, 0) AS lessons_finished,
-               coalesce(ls.quizzes_passed, 0) AS quizzes_passed,
-               ls.last_activity_at AS last_activity,
-               (coalesce(ls.max_failed_attempts, 0) >= ${failedLimit}
-                 OR coalesce(ls.last_activity_at, m.added_at) < ${now} - make_interval(days => ${idleDays})) AS needs_help
+        SELECT m.user_id, m.added_at${names ? ', m.display_name, m.email' : ''}
+               ${learnerFirst ? `, ${learnerColumns('ls', 'm.added_at')}` : ''}
                ${extra.map((e) => `, ${e}`).join('')}
           FROM members m
-          LEFT JOIN learner_standing ls ON ls.user_id = m.user_id
+          ${learnerFirst ? 'LEFT JOIN learner_standing ls ON ls.user_id = m.user_id' : ''}
           ${joins.join('\n          ')}
-      ),
+      )`;
+    if (paging === 'count') {
+      return `${book(filters.q !== undefined && filters.q !== '')}
+      SELECT count(*)::int AS n FROM book b ${where.length ? `WHERE ${where.join(' AND ')}` : ''}`;
+    }
+
+    return `${book(true)},
       page AS (
-        SELECT b.*, count(*) OVER ()::int AS total
+        SELECT b.*
           FROM book b
          ${where.length ? `WHERE ${where.join(' AND ')}` : ''}
          ORDER BY ${order}
          ${page}
       )
-      SELECT b.*,
+      SELECT b.user_id, b.display_name, b.email, b.added_at,
+             ${learnerColumns('pl', 'b.added_at')},
              coalesce((SELECT jsonb_object_agg(qs.quiz_slug, jsonb_build_object('s', qs.status, 'b', qs.best_percent, 'u', qs.attempts_used, 'f', qs.failed_attempts))
-                         FROM quiz_standing qs WHERE qs.user_id = b.user_id AND qs.quiz_slug = ANY(${quizSlugs})), '{}'::jsonb) AS cells
+                         FROM quiz_standing qs WHERE qs.user_id = b.user_id AND qs.quiz_slug = ANY(${quizSlugs()})), '{}'::jsonb) AS cells
         FROM page b
+        LEFT JOIN learner_standing pl ON pl.user_id = b.user_id
        ORDER BY ${order}`;
   }
 
