@@ -92,7 +92,7 @@ export class GradingQueuePage {
         this.saved.set(
           `Saved: ${graded.points} of ${graded.maxPoints} points for ${item.apprentice.displayName}. The attempt now scores ${score} %` +
             `${graded.attempt.pendingCount > 0 ? ' (other answers still wait)' : graded.attempt.passed ? ', a pass' : ', not yet a pass'}. ` +
-            'They get an e-mail and see your marks with their result.',
+            'They get an e-mail and a notification, and see your marks with their result.',
         );
         this.selected.set(null);
         this.form.set(null);
