@@ -11,6 +11,10 @@ import { LessonStore } from './lessons/lesson-store';
 import { closeGracefully } from './http/graceful-shutdown';
 import { createLogger } from './logger';
 import { Mailer, smtpTransport } from './mail/mailer';
+import { AttemptsService } from './quizzes/attempts.service';
+import { quizStore } from './quizzes/quiz-store';
+
+const EXPIRED_SWEEP_MS = 60_000;
 
 /** Starts the API and the client on one port; stops gracefully on SIGINT/SIGTERM. */
 async function main(): Promise<void> {
@@ -23,7 +27,17 @@ async function main(): Promise<void> {
   lessons.current(); // render the course now, not on the first reader's request
   if (config.env === 'development') lessons.watch();
   const mailer = new Mailer(smtpTransport(config.mail), config.mail.from, dataSource, logger);
-  const app = createApp({ config, dataSource, logger, lessons, mailer });
+  const quizzes = quizStore(config.quizDir, () => lessons.current().lessons.map((lesson) => lesson.meta.slug), logger);
+  quizzes(); // read and check the quizzes now (problems are logged at start-up, not on a first request)
+  const app = createApp({ config, dataSource, logger, lessons, mailer, quizzes });
+  // Attempts past their time limit are graded within a minute even if nobody opens them again, so
+  // the gradebook does not show them in progress. Safe with several instances: an attempt is
+  // graded once (AttemptsService.gradeOnce).
+  const attempts = new AttemptsService(dataSource, { quizzes, appBaseUrl: config.appBaseUrl });
+  const sweep = setInterval(() => {
+    attempts.gradeExpired().catch((err: unknown) => logger.warn({ err }, 'grading attempts past their deadline failed'));
+  }, EXPIRED_SWEEP_MS);
+  sweep.unref();
   const server = createServer(app);
   server.listen(config.port, config.host, () => {
     const address = server.address();
@@ -37,6 +51,7 @@ async function main(): Promise<void> {
     if (stopping) return;
     stopping = true;
     logger.info({ signal }, 'shutting down: finishing in-flight requests');
+    clearInterval(sweep);
     const { forced } = await closeGracefully(server, config.shutdownGraceSeconds * 1000);
     if (forced) logger.warn('grace period over: remaining connections were closed');
     await mailer.idle();

@@ -4,7 +4,8 @@ import type { AttemptView, QuizSummary } from '../../shared/api/quizzes';
 import { Cohort } from '../cohorts/cohort.entity';
 import { CohortMember } from '../cohorts/cohort-member.entity';
 import { createUser, migratedTestDataSource, signedIn, type Browser } from '../testing/accounts';
-import { rescoreAttempt } from './attempts.service';
+import { AttemptsService, rescoreAttempt } from './attempts.service';
+import type { QuizLibrary } from './quiz-library';
 import { fixtureLibrary, fixtureQuiz, quizTestApp, uniqueSlug } from './test-quizzes/fixture-quiz';
 
 /**
@@ -17,11 +18,12 @@ describe('quiz attempts API', () => {
   const slug = uniqueSlug('fixture-flow');
   const timedSlug = uniqueSlug('fixture-timed');
   let t: ReturnType<typeof quizTestApp>;
+  let library: QuizLibrary;
 
   beforeAll(async () => {
     dataSource = await migratedTestDataSource();
     clock = new Date();
-    const library = fixtureLibrary(fixtureQuiz({ lesson: slug }), fixtureQuiz({ lesson: timedSlug, title: 'Timed fixture', timeLimitMinutes: 20 }));
+    library = fixtureLibrary(fixtureQuiz({ lesson: slug }), fixtureQuiz({ lesson: timedSlug, title: 'Timed fixture', timeLimitMinutes: 20 }));
     t = quizTestApp(dataSource, library, { now: () => clock });
   });
 
@@ -214,6 +216,29 @@ describe('quiz attempts API', () => {
       expect(result.questions.find((q) => q.id === 'why-test-pressure')!.result!.status).toBe('correct');
       expect(result.questions.find((q) => q.id === 'convert-reading')!.result!.status).toBe('unanswered');
       expect(result.score!.points).toBe(1);
+    } finally {
+      clock = started;
+    }
+  });
+
+  it("grades an attempt past its deadline that nobody opens again (the server's sweep), once", async () => {
+    const { browser, id } = await apprentice();
+    const view = await start(browser, timedSlug);
+    await browser.send('put', `/api/attempts/${view.id}/answers/why-test-pressure`, { answer: { choiceId: 'a' } });
+    const sweeper = new AttemptsService(dataSource, { quizzes: () => library, now: () => clock, appBaseUrl: 'http://127.0.0.1' });
+    expect(await sweeper.gradeExpired({ userId: id })).toBe(0); // before the deadline: left open
+    const started = clock;
+    try {
+      clock = new Date(started.getTime() + 21 * 60_000);
+      await sweeper.gradeExpired();
+      const [row] = await dataSource.query('SELECT status, submitted_at, points FROM quiz_attempt WHERE id = $1', [view.id]);
+      expect(row).toMatchObject({ status: 'submitted', points: 1 });
+      expect(new Date(row.submitted_at).toISOString()).toBe(view.deadline);
+      // The gradebook's standing follows (its triggers): not "in progress" any more. (The written
+      // question was left unanswered, so nothing waits for an instructor: 1 of 11 is not a pass.)
+      const [standing] = await dataSource.query('SELECT status FROM quiz_standing WHERE user_id = $1 AND quiz_slug = $2', [id, timedSlug]);
+      expect(standing.status).toBe('not-yet-passed');
+      expect(await sweeper.gradeExpired({ userId: id })).toBe(0);
     } finally {
       clock = started;
     }
