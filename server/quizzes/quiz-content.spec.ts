@@ -1,9 +1,10 @@
 import { join } from 'node:path';
 
 import { convert, describeCalculator, type Bound } from '../../shared/airflow';
+import { kindOfUnit } from '../../shared/quiz/answers';
 import type { DrawnInput, FreshNumbersQuestion, QuestionDefinition } from '../../shared/quiz/definition';
 import { drawFresh, isDrawnInput, questionSeed, runCheck, stepCount } from '../../shared/quiz/draw';
-import { isWithinTolerance } from '../../shared/quiz/grade';
+import { gradeResponse, isWithinTolerance } from '../../shared/quiz/grade';
 import { loadLessonLibrary } from '../lessons/lesson-library';
 import { loadQuizLibrary } from './quiz-library';
 
@@ -97,6 +98,14 @@ describe.each(quizzes.map((q) => [q.definition.lesson, q] as const))('quiz %s', 
       expect({ label, finite: Number.isFinite(draw.key.value) }).toEqual({ label, finite: true });
       expect(drawFresh(question, seed)).toEqual(draw);
       seen.add(JSON.stringify(draw.inputs));
+      // No reading the stem gives, typed in as it stands, earns the points: the apprentice must work
+      // (an unconverted vacuum reading, or a flow left uncorrected, would otherwise pass by chance).
+      for (const [name, given] of Object.entries(draw.inputs)) {
+        if (!given || typeof given !== 'object' || !('value' in given)) continue;
+        if (kindOfUnit(given.unit) !== kindOfUnit(question.answerUnit)) continue;
+        const graded = gradeResponse(question, { value: given.value, unit: given.unit }, { key: draw.key });
+        expect({ label, name, given, key: draw.key, status: graded.status }).toEqual({ label, name, given, key: draw.key, status: 'incorrect' });
+      }
     }
     // Different seeds give different numbers (all of them when there are fewer than 10 combinations).
     expect(seen.size).toBeGreaterThanOrEqual(Math.min(combinations, 10));
