@@ -30,7 +30,7 @@ test.describe('as an administrator', () => {
     await page.getByRole('tab', { name: 'Audit log' }).click();
     const change = page
       .getByRole('table', { name: 'Audit log' })
-      .getByRole('row', { name: new RegExp(`Role changed.*${apprentice.id.slice(0, 8)}`) });
+      .getByRole('row', { name: new RegExp(`Role changed.*Avery Admin-E2E.*${apprentice.displayName}`) });
     await expect(change).toContainText('Apprentice → Instructor');
   });
 

@@ -1,5 +1,6 @@
 import type { DataSource } from 'typeorm';
 
+import type { AuditView } from '../../shared/api/accounts';
 import { accountsTestApp, createShopOwner, createUser, migratedTestDataSource, signedIn, uniqueEmail, type AccountsTestApp } from '../testing/accounts';
 
 describe('admin, cohort and shop APIs', () => {
@@ -40,6 +41,10 @@ describe('admin, cohort and shop APIs', () => {
     expect(audit.body.items).toEqual(
       expect.arrayContaining([expect.objectContaining({ actorId: adminUser.id, targetId: target.id, action: 'role.changed', detail: { from: 'apprentice', to: 'instructor' } })]),
     );
+    // Names, not bare ids, for the audit page.
+    const entry = (audit.body.items as AuditView[]).find((e) => e.action === 'role.changed' && e.targetId === target.id)!;
+    expect(entry.actor).toEqual({ id: adminUser.id, displayName: adminUser.displayName, email: adminUser.email });
+    expect(entry.target).toEqual({ id: target.id, displayName: target.displayName, email: target.email });
     expect((await admin.send('patch', `/api/admin/users/${adminUser.id}`, { disabled: true })).status).toBe(409);
   });
 

@@ -75,8 +75,20 @@ export class AdminService {
   }
 
   async listAudit(page: number, pageSize: number): Promise<Page<AuditView>> {
-    const [rows, total] = await this.dataSource.getRepository(AuditEntry).findAndCount({ order: { at: 'DESC', id: 'ASC' }, skip: (page - 1) * pageSize, take: pageSize });
-    const items = rows.map((a) => ({ id: a.id, actorId: a.actorId, targetId: a.targetId, action: a.action, detail: a.detail, at: a.at.toISOString() }));
+    const [rows, total] = await this.dataSource
+      .getRepository(AuditEntry)
+      .findAndCount({ relations: { actor: true, target: true }, order: { at: 'DESC', id: 'ASC' }, skip: (page - 1) * pageSize, take: pageSize });
+    const person = (user: AuditEntry['actor']) => (user ? { id: user.id, displayName: user.displayName, email: user.email } : null);
+    const items = rows.map((a) => ({
+      id: a.id,
+      actorId: a.actorId,
+      targetId: a.targetId,
+      actor: person(a.actor),
+      target: person(a.target),
+      action: a.action,
+      detail: a.detail,
+      at: a.at.toISOString(),
+    }));
     return { items, page, pageSize, total };
   }
 }

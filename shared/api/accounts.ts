@@ -155,6 +155,10 @@ export interface AuditView {
   id: string;
   actorId: string | null;
   targetId: string | null;
+  /** Who acted, by name (null: the command line, or an account since deleted). */
+  actor: { id: string; displayName: string; email: string } | null;
+  /** Whose account it was about, by name (null when none, or deleted). */
+  target: { id: string; displayName: string; email: string } | null;
   action: string;
   detail: Record<string, unknown>;
   at: string;

@@ -1,4 +1,4 @@
-import { DatePipe, SlicePipe } from '@angular/common';
+import { DatePipe } from '@angular/common';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
 import { MatButton } from '@angular/material/button';
 import { MatPaginator, type PageEvent } from '@angular/material/paginator';
@@ -19,7 +19,7 @@ const ACTION_LABELS: Readonly<Record<string, string>> = {
 /** `/admin/audit`: who changed a role or an account's access, and when; newest first. */
 @Component({
   selector: 'fl-audit-page',
-  imports: [DatePipe, MatButton, MatPaginator, MatTableModule, SlicePipe],
+  imports: [DatePipe, MatButton, MatPaginator, MatTableModule],
   template: `
     <h2 class="visually-hidden">Audit log</h2>
     @if (audit.error()) {
@@ -36,12 +36,24 @@ const ACTION_LABELS: Readonly<Record<string, string>> = {
           <td mat-cell *matCellDef="let entry">{{ actionLabel(entry.action) }}</td>
         </ng-container>
         <ng-container matColumnDef="actor">
-          <th mat-header-cell *matHeaderCellDef>By (account id)</th>
-          <td mat-cell *matCellDef="let entry" class="figures" [title]="entry.actorId ?? ''">{{ entry.actorId ? (entry.actorId | slice: 0 : 8) : '—' }}</td>
+          <th mat-header-cell *matHeaderCellDef>By</th>
+          <td mat-cell *matCellDef="let entry">
+            @if (entry.actor; as actor) {
+              <span [title]="actor.email">{{ actor.displayName }}</span>
+            } @else {
+              {{ entry.actorId ? 'A deleted account' : 'The system (command line or seed)' }}
+            }
+          </td>
         </ng-container>
         <ng-container matColumnDef="target">
-          <th mat-header-cell *matHeaderCellDef>Account (id)</th>
-          <td mat-cell *matCellDef="let entry" class="figures" [title]="entry.targetId ?? ''">{{ entry.targetId ? (entry.targetId | slice: 0 : 8) : '—' }}</td>
+          <th mat-header-cell *matHeaderCellDef>Account</th>
+          <td mat-cell *matCellDef="let entry">
+            @if (entry.target; as target) {
+              <span [title]="target.email">{{ target.displayName }}</span>
+            } @else {
+              {{ entry.targetId ? 'A deleted account' : '—' }}
+            }
+          </td>
         </ng-container>
         <ng-container matColumnDef="detail">
           <th mat-header-cell *matHeaderCellDef>Detail</th>
