@@ -41,6 +41,20 @@ describe('loadConfig', () => {
     expect(loadConfig({ DATABASE_URL: url, QUIZ_DIR: '/srv/quizzes' }).quizDir).toBe('/srv/quizzes');
   });
 
+  it('reads seat prices (tiers in cents) and the currency, and refuses bad tiers by name', () => {
+    expect(loadConfig({ DATABASE_URL: url }).seatPricing).toEqual({
+      currency: 'usd',
+      tiers: [
+        { fromSeats: 1, unitAmount: 4900 },
+        { fromSeats: 10, unitAmount: 4400 },
+        { fromSeats: 50, unitAmount: 3900 },
+      ],
+    });
+    expect(loadConfig({ DATABASE_URL: url, SEAT_PRICES: '1:2500', SEAT_CURRENCY: 'EUR' }).seatPricing).toEqual({ currency: 'eur', tiers: [{ fromSeats: 1, unitAmount: 2500 }] });
+    expect(() => loadConfig({ DATABASE_URL: url, SEAT_PRICES: '5:2500' })).toThrow(/SEAT_PRICES: The first tier must start at 1 seat/);
+    expect(() => loadConfig({ DATABASE_URL: url, SEAT_CURRENCY: 'dollars' })).toThrow(/SEAT_CURRENCY/);
+  });
+
   it('requires a database URL', () => {
     expect(() => loadConfig({})).toThrow(/DATABASE_URL/);
   });

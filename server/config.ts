@@ -2,6 +2,8 @@ import { resolve } from 'node:path';
 
 import { z } from 'zod';
 
+import { parseSeatTiers, type SeatPricing } from '../shared/billing/pricing';
+
 /** Server configuration, read once from the environment at start-up and passed in. */
 export interface Config {
   readonly env: 'development' | 'test' | 'production';
@@ -30,6 +32,8 @@ export interface Config {
   /** Where links in e-mails point (the public address of the app, no trailing slash). */
   readonly appBaseUrl: string;
   readonly mail: MailConfig;
+  /** What a seat costs (per-seat price by volume tier, integer cents, one currency). */
+  readonly seatPricing: SeatPricing;
 }
 
 export interface MailConfig {
@@ -71,6 +75,22 @@ const schema = z.object({
   SMTP_USER: z.string().min(1).optional(),
   SMTP_PASS: z.string().min(1).optional(),
   MAIL_FROM: z.string().min(3).default('Flowlore <no-reply@flowlore.test>'),
+  SEAT_PRICES: z
+    .string()
+    .default('1:4900,10:4400,50:3900')
+    .transform((text, ctx) => {
+      const tiers = parseSeatTiers(text);
+      if (typeof tiers === 'string') {
+        ctx.addIssue({ code: 'custom', message: tiers });
+        return z.NEVER;
+      }
+      return tiers;
+    }),
+  SEAT_CURRENCY: z
+    .string()
+    .regex(/^[a-zA-Z]{3}$/, 'SEAT_CURRENCY is a three-letter ISO 4217 code, e.g. usd')
+    .default('usd')
+    .transform((code) => code.toLowerCase()),
 }).superRefine((value, ctx) => {
   if (value.NODE_ENV === 'production' && !value.SESSION_SECRET) {
     ctx.addIssue({ code: 'custom', path: ['SESSION_SECRET'], message: 'SESSION_SECRET is required in production' });
@@ -113,5 +133,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       pass: value.SMTP_PASS,
       from: value.MAIL_FROM,
     },
+    seatPricing: { currency: value.SEAT_CURRENCY, tiers: value.SEAT_PRICES },
   };
 }
