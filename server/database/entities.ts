@@ -11,6 +11,11 @@ import { LessonProgress } from '../progress/lesson-progress.entity';
 import { QuestionVersion } from '../quizzes/question-version.entity';
 import { QuizAttempt } from '../quizzes/quiz-attempt.entity';
 import { QuizResponse } from '../quizzes/quiz-response.entity';
+import { PaymentEvent } from '../seats/payment-event.entity';
+import { SeatOrder } from '../seats/seat-order.entity';
+import { SeatPool } from '../seats/seat-pool.entity';
+import { SeatRefund } from '../seats/seat-refund.entity';
+import { Seat } from '../seats/seat.entity';
 import { Shop } from '../shops/shop.entity';
 import { SeedRun } from './seed-run.entity';
 
@@ -19,4 +24,5 @@ export const entities = [
   SeedRun, User, Shop, Cohort, CohortMember, AccountToken, OutboxMessage, AuditEntry,
   QuestionVersion, QuizAttempt, QuizResponse, LessonProgress, LearningRecord,
   QuizStanding, LearnerStanding, Notification,
+  SeatPool, Seat, SeatOrder, PaymentEvent, SeatRefund,
 ];
