@@ -38,6 +38,8 @@ import { GradingService } from './quizzes/grading.service';
 import type { QuizLibrary } from './quizzes/quiz-library';
 import { quizStore } from './quizzes/quiz-store';
 import { quizzesRouter } from './quizzes/quizzes.router';
+import { seatsRouter } from './seats/seats.router';
+import { SeatsService } from './seats/seats.service';
 import { shopsRouter } from './shops/shops.router';
 
 export interface AppDependencies {
@@ -117,6 +119,7 @@ export function createApp({
   api.use('/cohorts', cohortsRouter(new CohortsService(dataSource), dataSource));
   api.use(shopProgressRouter(gradebook));
   api.use('/shops', shopsRouter(dataSource));
+  api.use(seatsRouter(new SeatsService(dataSource, { mailer, appBaseUrl: config.appBaseUrl, now })));
   const attempts = new AttemptsService(dataSource, { quizzes, now, appBaseUrl: config.appBaseUrl });
   api.use(quizzesRouter(attempts));
   api.use(gradingRouter(new GradingService(dataSource, { quizzes, attempts, mailer, appBaseUrl: config.appBaseUrl, now })));

@@ -114,6 +114,27 @@ const MATRIX: Record<string, Row> = {
   'GET /api/shops/mine': { request: get('/api/shops/mine'), expect: [401, 403, 403, 200, 403, 403] },
   // Progress of the owner's own shop only (completion, no answers); nobody else's.
   'GET /api/shop/progress': { request: get('/api/shop/progress'), expect: [401, 403, 403, 200, 403, 403] },
+  // The owner's shop has no seats paid for: invitations are skipped (200), an assignment is a 409.
+  'GET /api/shop/seats': { request: get('/api/shop/seats'), expect: [401, 403, 403, 200, 403, 403] },
+  'POST /api/shop/invitations': {
+    request: () => ({ method: 'post', path: '/api/shop/invitations', body: { emails: ['matrix-invitee@example.test'] } }),
+    expect: [401, 403, 403, 200, 403, 403],
+  },
+  'POST /api/shop/invitations/:id/resend': {
+    request: () => ({ method: 'post', path: `/api/shop/invitations/${randomUUID()}/resend` }),
+    expect: [401, 403, 403, 404, 403, 403],
+  },
+  'DELETE /api/shop/invitations/:id': { request: () => ({ method: 'delete', path: `/api/shop/invitations/${randomUUID()}` }), expect: [401, 403, 403, 404, 403, 403] },
+  'POST /api/shop/seats/assign': {
+    request: (f) => ({ method: 'post', path: '/api/shop/seats/assign', body: { userId: f.users.apprentice.id } }),
+    expect: [401, 403, 403, 409, 403, 403],
+  },
+  'POST /api/shop/seats/:id/release': { request: () => ({ method: 'post', path: `/api/shop/seats/${randomUUID()}/release` }), expect: [401, 403, 403, 404, 403, 403] },
+  // Only an apprentice may accept; this token matches no invitation.
+  'POST /api/invitations/accept': {
+    request: () => ({ method: 'post', path: '/api/invitations/accept', body: { token: 'x'.repeat(40) } }),
+    expect: [401, 404, 403, 403, 403, 403],
+  },
   // The gradebook: the cohort's instructor and admins; another instructor's is a 403.
   'GET /api/cohorts/:id/gradebook': { request: (f) => ({ method: 'get', path: `/api/cohorts/${f.cohortId}/gradebook?sort=name` }), expect: [401, 403, 200, 403, 200, 403] },
   'GET /api/cohorts/:id/gradebook.csv': { request: (f) => ({ method: 'get', path: `/api/cohorts/${f.cohortId}/gradebook.csv` }), expect: [401, 403, 200, 403, 200, 403] },

@@ -12,6 +12,7 @@ import { QuestionVersion } from '../quizzes/question-version.entity';
 import { QuizAttempt } from '../quizzes/quiz-attempt.entity';
 import { QuizResponse } from '../quizzes/quiz-response.entity';
 import { PaymentEvent } from '../seats/payment-event.entity';
+import { SeatInvitation } from '../seats/seat-invitation.entity';
 import { SeatOrder } from '../seats/seat-order.entity';
 import { SeatPool } from '../seats/seat-pool.entity';
 import { SeatRefund } from '../seats/seat-refund.entity';
@@ -24,5 +25,5 @@ export const entities = [
   SeedRun, User, Shop, Cohort, CohortMember, AccountToken, OutboxMessage, AuditEntry,
   QuestionVersion, QuizAttempt, QuizResponse, LessonProgress, LearningRecord,
   QuizStanding, LearnerStanding, Notification,
-  SeatPool, Seat, SeatOrder, PaymentEvent, SeatRefund,
+  SeatPool, Seat, SeatOrder, PaymentEvent, SeatRefund, SeatInvitation,
 ];

@@ -8,7 +8,8 @@ export type Role = (typeof ROLES)[number];
 export const UNIT_SYSTEMS = ['si', 'us'] as const;
 export type UnitSystem = (typeof UNIT_SYSTEMS)[number];
 
-const email = z.string().trim().toLowerCase().pipe(z.email({ error: 'Enter an e-mail address like name@example.com.' })).pipe(z.string().max(254));
+export const emailAddress = z.string().trim().toLowerCase().pipe(z.email({ error: 'Enter an e-mail address like name@example.com.' })).pipe(z.string().max(254));
+const email = emailAddress;
 /** Length only: at least 8 characters, no composition rules; long passphrases welcome (up to 1000). */
 const newPassword = z.string().min(8, 'Use at least 8 characters.').max(1000, 'Use at most 1000 characters.');
 const anyPassword = z.string().min(1, 'Enter your password.').max(1000);
