@@ -2,7 +2,7 @@ import { resolve } from 'node:path';
 
 import { z } from 'zod';
 
-import { parseSeatTiers, type SeatPricing } from '../shared/billing/pricing';
+import { DEFAULT_SEAT_PRICES, parseSeatTiers, type SeatPricing } from '../shared/billing/pricing';
 
 /** Server configuration, read once from the environment at start-up and passed in. */
 export interface Config {
@@ -77,7 +77,7 @@ const schema = z.object({
   MAIL_FROM: z.string().min(3).default('Flowlore <no-reply@flowlore.test>'),
   SEAT_PRICES: z
     .string()
-    .default('1:4900,10:4400,50:3900')
+    .default(DEFAULT_SEAT_PRICES)
     .transform((text, ctx) => {
       const tiers = parseSeatTiers(text);
       if (typeof tiers === 'string') {

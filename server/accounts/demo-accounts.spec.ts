@@ -1,6 +1,7 @@
 import type { DataSource } from 'typeorm';
 
 import { runSeeds } from '../database/seeds';
+import { demoSeatsSeed } from '../seats/demo-seats';
 import { accountsTestApp, signedIn } from '../testing/accounts';
 import { scratchDatabase, testDataSource } from '../testing/database';
 import { DEMO_PASSWORD, DEMO_PEOPLE, demoAccountsSeed } from './demo-accounts';
@@ -30,6 +31,16 @@ describe('the demo accounts seed', () => {
              (SELECT count(*)::int FROM cohort) AS cohorts,
              (SELECT count(*)::int FROM user_account u JOIN shop s ON s.id = u.shop_id WHERE s.name = 'Larkfield Flow Lab' AND u.role = 'apprentice') AS in_shop`);
     expect(counts).toEqual({ verified: DEMO_PEOPLE.length, apprentices: 6, cohorts: 2, in_shop: 4 });
+  });
+
+  it('gives the shop 10 paid seats, one held by each of its four apprentices, once', async () => {
+    expect(await runSeeds(dataSource, [demoAccountsSeed, demoSeatsSeed])).toEqual(['demo-seats']);
+    expect(await runSeeds(dataSource, [demoAccountsSeed, demoSeatsSeed])).toEqual([]);
+    const [pool] = await dataSource.query(`SELECT p.purchased, p.in_use FROM seat_pool p JOIN shop s ON s.id = p.shop_id WHERE s.name = 'Larkfield Flow Lab'`);
+    expect(pool).toEqual({ purchased: 10, in_use: 4 });
+    // 10 seats at the 10-seat tier of the default prices (44.00 each).
+    const [order] = await dataSource.query(`SELECT quantity, unit_amount, total_amount, currency, status FROM seat_order`);
+    expect(order).toEqual({ quantity: 10, unit_amount: 4400, total_amount: 44_000, currency: 'usd', status: 'paid' });
   });
 
   it('lets Jo Okafor sign in with the demo password, which passes our own password rules', async () => {

@@ -1,6 +1,7 @@
 import type { DataSource, EntityManager } from 'typeorm';
 
 import { demoAccountsSeed } from '../accounts/demo-accounts';
+import { demoSeatsSeed } from '../seats/demo-seats';
 import { SeedRun } from './seed-run.entity';
 
 /** A named, versioned set of rows; applied once per database, inside one transaction. */
@@ -11,7 +12,7 @@ export interface SeedSet {
 }
 
 /** The demo scenario's seed sets, in order. Feature issues register theirs here. */
-export const demoSeedSets: readonly SeedSet[] = [demoAccountsSeed];
+export const demoSeedSets: readonly SeedSet[] = [demoAccountsSeed, demoSeatsSeed];
 
 /** Applies each seed set not yet recorded at its version; returns the names applied now. */
 export async function runSeeds(dataSource: DataSource, sets: readonly SeedSet[] = demoSeedSets): Promise<string[]> {

@@ -18,6 +18,9 @@ export interface SeatPricing {
   readonly tiers: readonly PriceTier[];
 }
 
+/** The prices when configuration sets none (SEAT_PRICES): 49.00 from 1 seat, 44.00 from 10, 39.00 from 50. */
+export const DEFAULT_SEAT_PRICES = '1:4900,10:4400,50:3900';
+
 export const MIN_SEATS_PER_ORDER = 1;
 export const MAX_SEATS_PER_ORDER = 500;
 

@@ -82,6 +82,12 @@ export const routes: Routes = [
     loadComponent: () => import('./progress/progress-page').then((m) => m.ProgressPage),
   },
   {
+    path: 'invitations/accept',
+    title: 'Your invitation',
+    data: { needsConnection: true },
+    loadComponent: () => import('./invitations/accept-invitation-page').then((m) => m.AcceptInvitationPage),
+  },
+  {
     path: 'notifications',
     title: 'Notifications',
     data: { needsConnection: true },

@@ -5,28 +5,23 @@ import { MatTableModule } from '@angular/material/table';
 
 import { problemMessage } from '../core/problem';
 import { ShopApi } from './shop-api';
+import { ShopSeatsPanel } from './shop-seats';
 
 /**
  * `/shop`: the shop owner's shop, its apprentices and their progress (read-only: lessons finished,
  * quizzes passed, last activity; answers, scores and comments stay between apprentice and instructor).
- * Seats and invitations come later.
+ * Seats: the balance, invitations and the seats in use (`ShopSeatsPanel`).
  */
 @Component({
   selector: 'fl-shop-page',
-  imports: [DatePipe, MatButton, MatTableModule],
+  imports: [DatePipe, MatButton, MatTableModule, ShopSeatsPanel],
   template: `
     @if (shop.hasValue()) {
       @let current = shop.value();
       <h1>{{ current.name }}</h1>
       <p class="lead">Owner: {{ current.owner.displayName }}</p>
 
-      <div class="notice" role="note">
-        <p>
-          <strong>Seats are not on sale yet.</strong> Buying seats and inviting apprentices by e-mail
-          come in a later version of Flowlore. Until then this page lists the apprentices already linked
-          to your shop.
-        </p>
-      </div>
+      <fl-shop-seats />
 
       <h2 id="apprentices-heading">Apprentices</h2>
       <div class="table-frame">
