@@ -77,7 +77,7 @@ export class AcceptInvitationPage {
     this.busy.set(true);
     this.problem.set(null);
     try {
-      this.accepted.set(await firstValueFrom(this.http.post<AcceptedInvitation>('/api/invitations/accept', { token: this.token() }, { context: problemDisplay('form') })));
+      this.accepted.set(await firstValueFrom(this.http.post<AcceptedInvitation>('/api/invitations/accept', { token: this.token() }, { context: problemDisplay('page') })));
     } catch (error) {
       this.problem.set(problemMessage(error, 'The invitation could not be accepted. Try again in a moment.'));
     } finally {

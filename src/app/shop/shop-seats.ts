@@ -1,17 +1,17 @@
 import { DatePipe } from '@angular/common';
 import { HttpClient, httpResource } from '@angular/common/http';
 import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
-import { FormControl, ReactiveFormsModule, Validators } from '@angular/forms';
+import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
-import { MatError, MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
+import { MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatTableModule } from '@angular/material/table';
 import { firstValueFrom } from 'rxjs';
 
 import { MAX_INVITATIONS_PER_REQUEST, type InviteResult, type SeatRow, type ShopSeats as SeatsView } from '../../../shared/api/seats';
 import { askToConfirm } from '../core/confirm-dialog';
-import { problemDisplay, problemMessage } from '../core/problem';
+import { problemDisplay, problemMessage, problemOf } from '../core/problem';
 import { pastedAddresses } from './pasted-addresses';
 
 /**
@@ -20,7 +20,7 @@ import { pastedAddresses } from './pasted-addresses';
  */
 @Component({
   selector: 'fl-shop-seats',
-  imports: [DatePipe, MatButton, MatError, MatFormField, MatHint, MatInput, MatLabel, MatTableModule, ReactiveFormsModule],
+  imports: [DatePipe, MatButton, MatFormField, MatHint, MatInput, MatLabel, MatTableModule, ReactiveFormsModule],
   template: `
     <section aria-labelledby="seats-heading">
       <h2 id="seats-heading">Seats</h2>
@@ -35,14 +35,11 @@ import { pastedAddresses } from './pasted-addresses';
           <p class="notice" role="note">Your shop has no seats yet. Buying seats online is the next part of Flowlore to arrive.</p>
         }
 
-        <form class="invite" (ngSubmit)="invite()" novalidate>
+        <form class="invite" [formGroup]="inviteForm" (ngSubmit)="invite()" novalidate>
           <mat-form-field class="addresses">
             <mat-label>E-mail addresses to invite</mat-label>
             <textarea matInput [formControl]="addresses" rows="3"></textarea>
             <mat-hint>One per line, or separated by commas; up to {{ maxInvites }} at a time. Each invitation holds a seat for 14 days.</mat-hint>
-            @if (addresses.invalid && addresses.touched) {
-              <mat-error>Enter at least one e-mail address.</mat-error>
-            }
           </mat-form-field>
           <button matButton="filled" type="submit" [disabled]="busy()">Invite</button>
         </form>
@@ -142,7 +139,8 @@ export class ShopSeatsPanel {
   private readonly http = inject(HttpClient);
   private readonly dialog = inject(MatDialog);
   protected readonly seats = httpResource<SeatsView>(() => '/api/shop/seats');
-  protected readonly addresses = new FormControl('', { nonNullable: true, validators: [Validators.required] });
+  protected readonly addresses = new FormControl('', { nonNullable: true });
+  protected readonly inviteForm = new FormGroup({ addresses: this.addresses });
   protected readonly busy = signal(false);
   protected readonly outcome = signal<string | null>(null);
   protected readonly columns = ['who', 'state', 'progress', 'actions'];
@@ -155,11 +153,19 @@ export class ShopSeatsPanel {
   protected async invite(): Promise<void> {
     const emails = pastedAddresses(this.addresses.value);
     if (emails.length === 0) {
-      this.addresses.markAsTouched();
+      this.outcome.set('Enter at least one e-mail address to invite.');
       return;
     }
     await this.run(async () => {
-      const result = await firstValueFrom(this.http.post<InviteResult>('/api/shop/invitations', { emails }, { context: problemDisplay('form') }));
+      const result = await firstValueFrom(this.http.post<InviteResult>('/api/shop/invitations', { emails }, { context: problemDisplay('page') })).catch((error: unknown) => {
+        // Name the addresses the server refused (its field errors point at emails.N).
+        const refused = (problemOf(error)?.errors ?? []).map((e) => {
+          const index = /^emails\.(\d+)$/.exec(e.field)?.[1];
+          return index === undefined ? e.message : `${emails[Number(index)]}: ${e.message}`;
+        });
+        if (refused.length === 0) throw error;
+        throw new Error(`Nobody was invited. ${refused.join(' ')}`);
+      });
       const skipped = result.skipped.map((s) => `${s.email} (${s.reason})`).join('; ');
       this.outcome.set(
         `Invited ${result.invited.length === 1 ? '1 address' : `${result.invited.length} addresses`}.` +
@@ -172,7 +178,7 @@ export class ShopSeatsPanel {
 
   protected async resend(seat: SeatRow): Promise<void> {
     await this.run(async () => {
-      await firstValueFrom(this.http.post(`/api/shop/invitations/${seat.invitation!.id}/resend`, {}));
+      await firstValueFrom(this.http.post(`/api/shop/invitations/${seat.invitation!.id}/resend`, {}, { context: problemDisplay('page') }));
       this.outcome.set(`The invitation to ${seat.invitation!.email} was sent again, with a new link; the old link no longer works.`);
     });
   }
@@ -185,7 +191,7 @@ export class ShopSeatsPanel {
     });
     if (!ok) return;
     await this.run(async () => {
-      await firstValueFrom(this.http.delete(`/api/shop/invitations/${seat.invitation!.id}`));
+      await firstValueFrom(this.http.delete(`/api/shop/invitations/${seat.invitation!.id}`, { context: problemDisplay('page') }));
       this.outcome.set(`The invitation to ${seat.invitation!.email} was withdrawn; its seat is free.`);
     });
   }
@@ -198,7 +204,7 @@ export class ShopSeatsPanel {
     });
     if (!ok) return;
     await this.run(async () => {
-      await firstValueFrom(this.http.post(`/api/shop/seats/${seat.seatId}/release`, {}));
+      await firstValueFrom(this.http.post(`/api/shop/seats/${seat.seatId}/release`, {}, { context: problemDisplay('page') }));
       this.outcome.set(`${seat.holder!.displayName}'s seat is free again.`);
     });
   }
@@ -210,7 +216,7 @@ export class ShopSeatsPanel {
       await action();
       this.seats.reload();
     } catch (error) {
-      this.outcome.set(problemMessage(error, 'That did not work. Try again in a moment.'));
+      this.outcome.set(error instanceof Error && !('status' in error) ? error.message : problemMessage(error, 'That did not work. Try again in a moment.'));
     } finally {
       this.busy.set(false);
     }
