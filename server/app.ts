@@ -38,6 +38,9 @@ import { GradingService } from './quizzes/grading.service';
 import type { QuizLibrary } from './quizzes/quiz-library';
 import { quizStore } from './quizzes/quiz-store';
 import { quizzesRouter } from './quizzes/quizzes.router';
+import { paymentsWebhookRouter, shopOrdersRouter } from './payments/payments.router';
+import { PaymentsService } from './payments/payments.service';
+import { providerClient } from './payments/provider-client';
 import { seatsRouter } from './seats/seats.router';
 import { SeatsService } from './seats/seats.service';
 import { shopsRouter } from './shops/shops.router';
@@ -80,7 +83,20 @@ export function createApp({
   app.use(client.assets);
   app.use(securityHeaders(config));
 
+  const seats = new SeatsService(dataSource, { mailer, appBaseUrl: config.appBaseUrl, now });
+  const payments = new PaymentsService(dataSource, {
+    stripe: providerClient(config.payments),
+    webhookSecret: config.payments.webhookSecret,
+    pricing: config.seatPricing,
+    seats,
+    mailer,
+    appBaseUrl: config.appBaseUrl,
+    now,
+  });
+
   const api = express.Router();
+  // The provider's events first: they need the raw body for their signature, and carry no session.
+  api.use(paymentsWebhookRouter(payments));
   api.use(express.json({ limit: '100kb' }));
   api.use('/health', healthRouter(dataSource));
   // Ahead of sessions and CSRF on purpose: evaluating a calculator changes nothing (POST only because
@@ -119,7 +135,8 @@ export function createApp({
   api.use('/cohorts', cohortsRouter(new CohortsService(dataSource), dataSource));
   api.use(shopProgressRouter(gradebook));
   api.use('/shops', shopsRouter(dataSource));
-  api.use(seatsRouter(new SeatsService(dataSource, { mailer, appBaseUrl: config.appBaseUrl, now })));
+  api.use(seatsRouter(seats));
+  api.use(shopOrdersRouter(payments));
   const attempts = new AttemptsService(dataSource, { quizzes, now, appBaseUrl: config.appBaseUrl });
   api.use(quizzesRouter(attempts));
   api.use(gradingRouter(new GradingService(dataSource, { quizzes, attempts, mailer, appBaseUrl: config.appBaseUrl, now })));

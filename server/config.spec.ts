@@ -55,6 +55,15 @@ describe('loadConfig', () => {
     expect(() => loadConfig({ DATABASE_URL: url, SEAT_CURRENCY: 'dollars' })).toThrow(/SEAT_CURRENCY/);
   });
 
+  it('reads the payment provider settings, checks their shape, and leaves buying off without a key', () => {
+    expect(loadConfig({ DATABASE_URL: url }).payments).toEqual({ secretKey: undefined, webhookSecret: undefined, apiUrl: undefined });
+    const config = loadConfig({ DATABASE_URL: url, STRIPE_SECRET_KEY: 'sk_test_abc123', STRIPE_WEBHOOK_SECRET: 'whsec_abc123', PAYMENT_PROVIDER_URL: 'http://127.0.0.1:12111' });
+    expect(config.payments).toEqual({ secretKey: 'sk_test_abc123', webhookSecret: 'whsec_abc123', apiUrl: 'http://127.0.0.1:12111' });
+    // A bad key is named, never echoed.
+    expect(() => loadConfig({ DATABASE_URL: url, STRIPE_SECRET_KEY: 'pk_test_oops-public' })).toThrow(/STRIPE_SECRET_KEY looks like/);
+    expect(() => loadConfig({ DATABASE_URL: url, STRIPE_SECRET_KEY: 'pk_test_oops-public' })).not.toThrow(/pk_test_oops/);
+  });
+
   it('requires a database URL', () => {
     expect(() => loadConfig({})).toThrow(/DATABASE_URL/);
   });

@@ -34,6 +34,18 @@ export interface Config {
   readonly mail: MailConfig;
   /** What a seat costs (per-seat price by volume tier, integer cents, one currency). */
   readonly seatPricing: SeatPricing;
+  readonly payments: PaymentsConfig;
+}
+
+/**
+ * The payment provider: its secret key and webhook signing secret (unset: buying is switched off),
+ * and, for the local fake, its address (unset: the provider's own API).
+ */
+export interface PaymentsConfig {
+  readonly secretKey?: string;
+  readonly webhookSecret?: string;
+  /** e.g. `http://127.0.0.1:12111` for `server/provider-fake`; unset for the real provider. */
+  readonly apiUrl?: string;
 }
 
 export interface MailConfig {
@@ -86,6 +98,9 @@ const schema = z.object({
       }
       return tiers;
     }),
+  STRIPE_SECRET_KEY: z.string().regex(/^(sk|rk)_(test|live)_\w+$/, 'STRIPE_SECRET_KEY looks like sk_test_… or sk_live_…').optional(),
+  STRIPE_WEBHOOK_SECRET: z.string().regex(/^whsec_\w+$/, 'STRIPE_WEBHOOK_SECRET looks like whsec_…').optional(),
+  PAYMENT_PROVIDER_URL: z.url({ protocol: /^https?$/ }).optional(),
   SEAT_CURRENCY: z
     .string()
     .regex(/^[a-zA-Z]{3}$/, 'SEAT_CURRENCY is a three-letter ISO 4217 code, e.g. usd')
@@ -134,5 +149,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
       from: value.MAIL_FROM,
     },
     seatPricing: { currency: value.SEAT_CURRENCY, tiers: value.SEAT_PRICES },
+    payments: { secretKey: value.STRIPE_SECRET_KEY, webhookSecret: value.STRIPE_WEBHOOK_SECRET, apiUrl: value.PAYMENT_PROVIDER_URL },
   };
 }

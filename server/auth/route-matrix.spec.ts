@@ -130,6 +130,12 @@ const MATRIX: Record<string, Row> = {
     expect: [401, 403, 403, 409, 403, 403],
   },
   'POST /api/shop/seats/:id/release': { request: () => ({ method: 'post', path: `/api/shop/seats/${randomUUID()}/release` }), expect: [401, 403, 403, 404, 403, 403] },
+  // Buying is switched off in tests without a provider key: the owner's order is a clear 503.
+  'POST /api/shop/orders': { request: () => ({ method: 'post', path: '/api/shop/orders', body: { quantity: 2 } }), expect: [401, 403, 403, 503, 403, 403] },
+  'GET /api/shop/orders': { request: get('/api/shop/orders'), expect: [401, 403, 403, 200, 403, 403] },
+  'GET /api/shop/orders/:id': { request: () => ({ method: 'get', path: `/api/shop/orders/${randomUUID()}` }), expect: [401, 403, 403, 404, 403, 403] },
+  // The provider's events carry no session; without a configured provider every caller gets the 503.
+  'POST /api/payments/webhook': { request: () => ({ method: 'post', path: '/api/payments/webhook', body: { id: 'evt_x' } }), expect: [503, 503, 503, 503, 503, 503] },
   // Only an apprentice may accept; this token matches no invitation.
   'POST /api/invitations/accept': {
     request: () => ({ method: 'post', path: '/api/invitations/accept', body: { token: 'x'.repeat(40) } }),
