@@ -75,7 +75,7 @@ export default defineConfig({
       LOG_LEVEL: 'warn',
       DATABASE_URL: process.env['DATABASE_URL'] ?? '',
       APP_BASE_URL: baseURL,
-      ...passThrough(['SMTP_HOST', 'SMTP_PORT', 'SMTP_SECURE', 'MAIL_FROM', 'SESSION_SECRET', 'DEMO_MODE']),
+      ...passThrough(['SMTP_HOST', 'SMTP_PORT', 'SMTP_SECURE', 'MAIL_FROM', 'SESSION_SECRET', 'DEMO_MODE', 'STRIPE_SECRET_KEY', 'STRIPE_WEBHOOK_SECRET', 'PAYMENT_PROVIDER_URL']),
     },
   },
 });

@@ -83,9 +83,10 @@ export function createApp({
   app.use(client.assets);
   app.use(securityHeaders(config));
 
-  const seats = new SeatsService(dataSource, { mailer, appBaseUrl: config.appBaseUrl, now });
+  const stripe = providerClient(config.payments);
+  const seats = new SeatsService(dataSource, { mailer, appBaseUrl: config.appBaseUrl, now, pricing: config.seatPricing, buying: stripe !== undefined });
   const payments = new PaymentsService(dataSource, {
-    stripe: providerClient(config.payments),
+    stripe,
     webhookSecret: config.payments.webhookSecret,
     pricing: config.seatPricing,
     seats,

@@ -3,6 +3,7 @@
 import { spawn } from 'node:child_process';
 
 import { startMailCatcher } from './mail-catcher.mjs';
+import { startProviderFake } from './provider-fake.mjs';
 import { log, run } from './process.mjs';
 import { ensureNpmDependencies } from './npm-deps.mjs';
 import { loadDotEnv, root } from './paths.mjs';
@@ -45,6 +46,7 @@ async function start() {
   };
 
   let server;
+  let stopProvider = async () => {};
   let interrupted = false;
   const onSignal = (signal) => {
     interrupted = true;
@@ -60,9 +62,16 @@ async function start() {
     await run('node', ['dist/api/server/cli.js', 'migrate'], { cwd: root, env });
     await run('node', ['dist/api/server/cli.js', 'seed'], { cwd: root, env });
     if (interrupted) return 0;
+    // Payments: the provider's local fake, unless keys for the provider itself are set.
+    if (!process.env.STRIPE_SECRET_KEY) {
+      const provider = await startProviderFake({ port: Number(process.env.PROVIDER_FAKE_PORT ?? 12111), webhookUrl: `http://127.0.0.1:${process.env.PORT ?? 4300}/api/payments/webhook` });
+      stopProvider = provider.stop;
+      Object.assign(env, { STRIPE_SECRET_KEY: provider.secretKey, STRIPE_WEBHOOK_SECRET: provider.webhookSecret, PAYMENT_PROVIDER_URL: provider.url });
+    }
     server = spawn('node', ['dist/api/server/main.js'], { cwd: root, env, stdio: 'inherit' });
     return await new Promise((resolve) => server.on('exit', (code, signal) => resolve(code ?? (signal ? 0 : 1))));
   } finally {
+    await stopProvider();
     await stopMail();
     await stopDatabase();
   }

@@ -6,6 +6,7 @@ import { existsSync, mkdirSync, rmSync } from 'node:fs';
 import { relative } from 'node:path';
 
 import { startMailCatcher } from './mail-catcher.mjs';
+import { startProviderFake } from './provider-fake.mjs';
 import { freePort } from './ports.mjs';
 import { aptInstall, log, run } from './process.mjs';
 import { ensureNpmDependencies } from './npm-deps.mjs';
@@ -44,6 +45,7 @@ async function test() {
     LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn',
   };
   const failures = [];
+  let stopProvider = async () => {};
   const step = async (name, command, args) => {
     log(name);
     try {
@@ -61,9 +63,14 @@ async function test() {
       // The app server the browser tests start (e2e/playwright.config.ts reads E2E_PORT), chosen just
       // before it starts so that a port taken meanwhile is not picked.
       env.E2E_PORT = String(await freePort(Number(process.env.E2E_PORT ?? 4310), { holder: "another test run's app server" }));
+      // The payment provider's fake, sending its events to that server.
+      const provider = await startProviderFake({ port: Number(process.env.TEST_PROVIDER_FAKE_PORT ?? 12211), webhookUrl: `http://127.0.0.1:${env.E2E_PORT}/api/payments/webhook` });
+      stopProvider = provider.stop;
+      Object.assign(env, { STRIPE_SECRET_KEY: provider.secretKey, STRIPE_WEBHOOK_SECRET: provider.webhookSecret, PAYMENT_PROVIDER_URL: provider.url });
       await step('browser tests (Playwright)', 'npx', ['playwright', 'test', '-c', 'e2e/playwright.config.ts']);
     }
   } finally {
+    await stopProvider();
     await mail.stop();
     await db.stop();
     printSlowestTests();

@@ -3,6 +3,7 @@ import { randomBytes } from 'node:crypto';
 import type { DataSource, EntityManager } from 'typeorm';
 
 import { INVITATION_DAYS, type AcceptedInvitation, type InviteResult, type SeatRow, type ShopSeats } from '../../shared/api/seats';
+import type { SeatPricing } from '../../shared/billing/pricing';
 import type { User } from '../accounts/user.entity';
 import { recordAudit } from '../admin/audit-log';
 import { tokenHash } from '../auth/account-tokens';
@@ -15,6 +16,9 @@ import { Seat } from './seat.entity';
 
 export interface SeatsServiceOptions {
   readonly mailer: Mailer;
+  /** Shown with the seats: what they cost, and whether they can be bought here. */
+  readonly pricing: SeatPricing;
+  readonly buying: boolean;
   /** The app's public address, for the invitation link. */
   readonly appBaseUrl: string;
   readonly now?: () => Date;
@@ -79,7 +83,7 @@ export class SeatsService {
           ? { lessonsFinished: r.lessons_finished ?? 0, quizzesPassed: r.quizzes_passed ?? 0, lastActivity: r.last_activity_at?.toISOString() ?? null }
           : null,
     }));
-    return { purchased: fresh.purchased, refunded: fresh.refunded, inUse: fresh.inUse, available: fresh.purchased - fresh.refunded - fresh.inUse, seats };
+    return { pricing: this.options.pricing, buying: this.options.buying, purchased: fresh.purchased, refunded: fresh.refunded, inUse: fresh.inUse, available: fresh.purchased - fresh.refunded - fresh.inUse, seats };
   }
 
   /** Invites each address (one seat each) until the free seats run out; the rest are skipped with the reason. */

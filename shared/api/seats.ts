@@ -1,5 +1,6 @@
 import { z } from 'zod';
 
+import type { SeatPricing } from '../billing/pricing';
 import { emailAddress } from './accounts';
 
 /** How long an invitation holds its seat. */
@@ -40,6 +41,10 @@ export interface SeatRow {
 
 /** `GET /api/shop/seats`: the shop's seat balance and the seats in use. */
 export interface ShopSeats {
+  /** What seats cost (volume tiers, minor units), for the price shown before buying. */
+  pricing: SeatPricing;
+  /** Whether this server takes payments (a provider is configured). */
+  buying: boolean;
   purchased: number;
   refunded: number;
   inUse: number;

@@ -1,15 +1,19 @@
 import { DatePipe } from '@angular/common';
 import { HttpClient, httpResource } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
+import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
 import { MatDialog } from '@angular/material/dialog';
 import { MatFormField, MatHint, MatLabel } from '@angular/material/form-field';
 import { MatInput } from '@angular/material/input';
 import { MatTableModule } from '@angular/material/table';
+import { ActivatedRoute, Router } from '@angular/router';
 import { firstValueFrom } from 'rxjs';
 
 import { MAX_INVITATIONS_PER_REQUEST, type InviteResult, type SeatRow, type ShopSeats as SeatsView } from '../../../shared/api/seats';
+import type { CheckoutStart, OrderView } from '../../../shared/api/payments';
+import { MAX_SEATS_PER_ORDER, MIN_SEATS_PER_ORDER, formatAmount, quoteSeats, type SeatPricing, type SeatQuote } from '../../../shared/billing/pricing';
 import { askToConfirm } from '../core/confirm-dialog';
 import { problemDisplay, problemMessage, problemOf } from '../core/problem';
 import { pastedAddresses } from './pasted-addresses';
@@ -31,8 +35,23 @@ import { pastedAddresses } from './pasted-addresses';
           <span class="figures">{{ s.inUse }}</span> in use ·
           <strong><span class="figures">{{ s.available }}</span> free</strong>
         </p>
-        @if (s.purchased === 0) {
-          <p class="notice" role="note">Your shop has no seats yet. Buying seats online is the next part of Flowlore to arrive.</p>
+        <div role="status" class="payment">
+          @if (confirming(); as c) {
+            <p>{{ c }}</p>
+          }
+        </div>
+        @if (s.buying) {
+          <form class="buy" [formGroup]="buyForm" (ngSubmit)="buy(s.pricing)" novalidate>
+            <mat-form-field class="quantity">
+              <mat-label>Seats to buy</mat-label>
+              <input matInput type="number" inputmode="numeric" min="1" max="500" step="1" [formControl]="quantity" />
+              <mat-hint>{{ priceLine(s.pricing) }}</mat-hint>
+            </mat-form-field>
+            <button matButton="filled" type="submit" [disabled]="busy() || !quote(s.pricing)">Buy {{ quote(s.pricing) ? formatAmount(quote(s.pricing)!.totalAmount, s.pricing.currency) : '' }}</button>
+          </form>
+          <p class="small">You pay on the payment provider's page and come back here; the seats are added as soon as the provider confirms the payment.</p>
+        } @else if (s.purchased === 0) {
+          <p class="notice" role="note">Your shop has no seats yet, and this server does not take payments. Ask Flowlore to add seats to your shop.</p>
         }
 
         <form class="invite" [formGroup]="inviteForm" (ngSubmit)="invite()" novalidate>
@@ -124,6 +143,24 @@ import { pastedAddresses } from './pasted-addresses';
       flex: 1 1 20rem;
     }
 
+    .buy {
+      display: flex;
+      flex-wrap: wrap;
+      gap: 1rem;
+      align-items: flex-start;
+      max-width: 44rem;
+    }
+
+    .quantity {
+      flex: 0 1 26rem;
+    }
+
+    .small {
+      max-width: 44rem;
+      font-size: 0.875rem;
+      color: var(--mat-sys-on-surface-variant);
+    }
+
     .outcome p {
       max-width: 44rem;
     }
@@ -141,6 +178,74 @@ export class ShopSeatsPanel {
   protected readonly seats = httpResource<SeatsView>(() => '/api/shop/seats');
   protected readonly addresses = new FormControl('', { nonNullable: true });
   protected readonly inviteForm = new FormGroup({ addresses: this.addresses });
+  protected readonly quantity = new FormControl<number | null>(5);
+  protected readonly buyForm = new FormGroup({ quantity: this.quantity });
+  private readonly quantityValue = toSignal(this.quantity.valueChanges, { initialValue: this.quantity.value });
+  /** While coming back from the provider's page: what we know of the payment so far. */
+  protected readonly confirming = signal<string | null>(null);
+  protected readonly formatAmount = formatAmount;
+  private readonly route = inject(ActivatedRoute);
+  private readonly router = inject(Router);
+
+  constructor() {
+    const query = this.route.snapshot.queryParamMap;
+    const orderId = query.get('order');
+    if (orderId && query.get('cancelled')) this.confirming.set('The payment was cancelled; nothing was charged.');
+    else if (orderId) void this.confirm(orderId);
+    inject(DestroyRef).onDestroy(() => (this.stopped = true));
+  }
+
+  private stopped = false;
+
+  protected quote(pricing: SeatPricing): SeatQuote | null {
+    const n = Number(this.quantityValue());
+    try {
+      return quoteSeats(pricing, n);
+    } catch {
+      return null;
+    }
+  }
+
+  protected priceLine(pricing: SeatPricing): string {
+    const quote = this.quote(pricing);
+    if (!quote) return `A whole number of seats from ${MIN_SEATS_PER_ORDER} to ${MAX_SEATS_PER_ORDER}.`;
+    return `${quote.quantity} × ${formatAmount(quote.unitAmount, pricing.currency)} = ${formatAmount(quote.totalAmount, pricing.currency)} (${pricing.tiers
+      .map((t) => `${formatAmount(t.unitAmount, pricing.currency)} from ${t.fromSeats}`)
+      .join(', ')})`;
+  }
+
+  protected async buy(pricing: SeatPricing): Promise<void> {
+    const quote = this.quote(pricing);
+    if (!quote) return;
+    await this.run(async () => {
+      const start = await firstValueFrom(this.http.post<CheckoutStart>('/api/shop/orders', { quantity: quote.quantity }, { context: problemDisplay('page') }));
+      window.location.assign(start.checkoutUrl);
+    });
+  }
+
+  /** Back from the provider's page: ask until its event has credited the seats (or the order ended). */
+  private async confirm(orderId: string): Promise<void> {
+    this.confirming.set('Confirming your payment…');
+    for (let i = 0; i < 40 && !this.stopped; i++) {
+      try {
+        const order = await firstValueFrom(this.http.get<OrderView>(`/api/shop/orders/${encodeURIComponent(orderId)}`, { context: problemDisplay('background') }));
+        if (order.status === 'paid') {
+          this.confirming.set(`Payment received: ${order.quantity === 1 ? '1 seat was' : `${order.quantity} seats were`} added (order ${order.number}). A receipt is on its way by e-mail.`);
+          this.seats.reload();
+          void this.router.navigate([], { queryParams: {}, replaceUrl: true });
+          return;
+        }
+        if (order.status !== 'pending') {
+          this.confirming.set(order.status === 'expired' ? 'The payment page closed before a payment; nothing was charged.' : 'The payment did not go through; nothing was charged.');
+          return;
+        }
+      } catch {
+        // Keep asking: the page may have come back before the connection did.
+      }
+      await new Promise((resolve) => setTimeout(resolve, 1500));
+    }
+    if (!this.stopped) this.confirming.set('The payment is not confirmed yet. It can take a minute; reload this page to see your seats.');
+  }
   protected readonly busy = signal(false);
   protected readonly outcome = signal<string | null>(null);
   protected readonly columns = ['who', 'state', 'progress', 'actions'];
