@@ -29,7 +29,7 @@ test.skip(!process.env['PAYMENT_PROVIDER_URL'], 'PAYMENT_PROVIDER_URL is not set
 test.use({ storageState: authFile('shop_owner') });
 
 test('the owner buys seats: a declined card, then one that pays, then one that asks for authentication', async ({ page }) => {
-  test.slow(); // two purchases through the provider's pages, each confirmed by its event, and two scans
+  test.slow(); // two purchases through the provider's pages, each confirmed by its event, and three scans
   const errors = watchErrors(page);
   await page.goto('/shop');
   await expect(page.getByRole('heading', { level: 2, name: 'Seats' })).toBeVisible();
@@ -49,6 +49,17 @@ test('the owner buys seats: a declined card, then one that pays, then one that a
   await expect(page.getByRole('status').filter({ hasText: 'Payment received: 5 seats were added' })).toBeVisible();
   await expect.poll(() => paidFor(page)).toBe(before + 5);
   await expectNoSeriousViolations(page);
+
+  // The order is listed as paid, with its printable receipt.
+  const orders = page.getByRole('table', { name: 'Orders' });
+  await expect(orders.getByRole('row').nth(1)).toContainText('$245.00');
+  await expect(orders.getByRole('row').nth(1)).toContainText('Paid');
+  await orders.getByRole('link', { name: /^Receipt of order/ }).first().click();
+  await expect(page.getByRole('heading', { level: 1, name: /^Receipt for order \d+$/ })).toBeVisible();
+  await expect(page.getByText('5 × $49.00')).toBeVisible();
+  await expect(page.getByText('ending in 4242')).toBeVisible();
+  await expectNoSeriousViolations(page);
+  await page.getByRole('link', { name: '← My shop' }).click();
 
   // One more, with the card that asks the bank to confirm.
   await page.getByLabel('Seats to buy').fill('1');

@@ -95,6 +95,13 @@ export const routes: Routes = [
     loadComponent: () => import('./notifications/notifications-page').then((m) => m.NotificationsPage),
   },
   {
+    path: 'shop/orders/:id',
+    title: 'Receipt',
+    data: { needsConnection: true },
+    canActivate: [roleGuard('shop_owner')],
+    loadComponent: () => import('./shop/receipt-page').then((m) => m.ReceiptPage),
+  },
+  {
     path: 'shop',
     title: 'My shop',
     data: { needsConnection: true },

@@ -5,6 +5,7 @@ import { MatTableModule } from '@angular/material/table';
 
 import { problemMessage } from '../core/problem';
 import { ShopApi } from './shop-api';
+import { ShopOrders } from './shop-orders';
 import { ShopSeatsPanel } from './shop-seats';
 
 /**
@@ -14,14 +15,15 @@ import { ShopSeatsPanel } from './shop-seats';
  */
 @Component({
   selector: 'fl-shop-page',
-  imports: [DatePipe, MatButton, MatTableModule, ShopSeatsPanel],
+  imports: [DatePipe, MatButton, MatTableModule, ShopOrders, ShopSeatsPanel],
   template: `
     @if (shop.hasValue()) {
       @let current = shop.value();
       <h1>{{ current.name }}</h1>
       <p class="lead">Owner: {{ current.owner.displayName }}</p>
 
-      <fl-shop-seats />
+      <fl-shop-seats (paid)="orders.reload()" />
+      <fl-shop-orders #orders />
 
       <h2 id="apprentices-heading">Apprentices</h2>
       <div class="table-frame">

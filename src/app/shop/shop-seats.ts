@@ -1,6 +1,6 @@
 import { DatePipe } from '@angular/common';
 import { HttpClient, httpResource } from '@angular/common/http';
-import { ChangeDetectionStrategy, Component, DestroyRef, inject, signal } from '@angular/core';
+import { ChangeDetectionStrategy, Component, DestroyRef, inject, output, signal } from '@angular/core';
 import { toSignal } from '@angular/core/rxjs-interop';
 import { FormControl, FormGroup, ReactiveFormsModule } from '@angular/forms';
 import { MatButton } from '@angular/material/button';
@@ -181,6 +181,8 @@ export class ShopSeatsPanel {
   protected readonly quantity = new FormControl<number | null>(5);
   protected readonly buyForm = new FormGroup({ quantity: this.quantity });
   private readonly quantityValue = toSignal(this.quantity.valueChanges, { initialValue: this.quantity.value });
+  /** A payment was confirmed here (the orders list asks again). */
+  readonly paid = output<void>();
   /** While coming back from the provider's page: what we know of the payment so far. */
   protected readonly confirming = signal<string | null>(null);
   protected readonly formatAmount = formatAmount;
@@ -232,6 +234,7 @@ export class ShopSeatsPanel {
         if (order.status === 'paid') {
           this.confirming.set(`Payment received: ${order.quantity === 1 ? '1 seat was' : `${order.quantity} seats were`} added (order ${order.number}). A receipt is on its way by e-mail.`);
           this.seats.reload();
+          this.paid.emit();
           void this.router.navigate([], { queryParams: {}, replaceUrl: true });
           return;
         }
