@@ -19,7 +19,9 @@ const FORBIDDEN_KEYS = ['correct', 'correctChoices', 'key', 'rubric', 'criterion
  * the stated tolerance): authored or fixed, never computed from a key, so a number in them that
  * happens to sit near a key tells nothing. Every other number is checked.
  */
-const SETTINGS = new Set(['status', 'number', 'attemptLimit', 'attemptsUsed', 'passMark', 'points', 'totalPoints', 'questionCount', 'timeLimitMinutes', 'tolerance', 'order', 'minutes', 'index']);
+// `units` and `answerUnit` are the fixed list of unit names ("inH2O_39F", "inHg_60F"): their digits
+// are part of the names, and a pressure key near 39 or 60 would otherwise look leaked.
+const SETTINGS = new Set(['status', 'number', 'attemptLimit', 'attemptsUsed', 'passMark', 'points', 'totalPoints', 'questionCount', 'timeLimitMinutes', 'tolerance', 'order', 'minutes', 'index', 'units', 'answerUnit']);
 
 const UUID = /[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}/gi;
 const ISO_TIME = /\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}(\.\d+)?Z/g;
