@@ -5,6 +5,7 @@ import type { CheckoutStart, OrderView } from '../../shared/api/payments';
 import { quoteSeats, type SeatPricing } from '../../shared/billing/pricing';
 import type { User } from '../accounts/user.entity';
 import { HttpProblem } from '../http/problem';
+import { isUuid } from '../http/uuid';
 import type { Mailer } from '../mail/mailer';
 import { receiptMail } from '../mail/templates/receipt';
 import { SeatOrder } from '../seats/seat-order.entity';
@@ -25,7 +26,6 @@ export interface PaymentsServiceOptions {
 const CHECKOUT_MINUTES = 30;
 /** Events older than this are refused (the SDK's default tolerance). */
 const SIGNATURE_TOLERANCE_S = 300;
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 export type WebhookOutcome = 'applied' | 'ignored' | 'duplicate';
 
@@ -94,16 +94,16 @@ export class PaymentsService {
 
   /** The shop's orders, newest first (a pending one past its checkout's end shows as expired). */
   async orders(shopId: string): Promise<OrderView[]> {
-    const pool = await this.options.seats.poolOf(this.dataSource.manager, shopId);
-    await this.expireStale(pool.id);
-    const rows = await this.dataSource.getRepository(SeatOrder).find({ where: { poolId: pool.id }, order: { createdAt: 'DESC' } });
+    await this.expireStale(shopId);
+    const rows = await this.dataSource.getRepository(SeatOrder).find({ where: { pool: { shopId } }, order: { createdAt: 'DESC' } });
     return rows.map(orderView);
   }
 
+  /** One of the shop's orders (the page polls it while a payment is being confirmed: reads only). */
   async order(shopId: string, orderId: string): Promise<OrderView> {
-    const pool = await this.options.seats.poolOf(this.dataSource.manager, shopId);
-    await this.expireStale(pool.id);
-    const order = UUID.test(orderId) ? await this.dataSource.getRepository(SeatOrder).findOneBy({ id: orderId, poolId: pool.id }) : null;
+    if (!isUuid(orderId)) throw HttpProblem.notFound('Your shop has no such order.');
+    await this.expireStale(shopId, orderId);
+    const order = await this.dataSource.getRepository(SeatOrder).findOneBy({ id: orderId, pool: { shopId } });
     if (!order) throw HttpProblem.notFound('Your shop has no such order.');
     return orderView(order);
   }
@@ -152,7 +152,7 @@ export class PaymentsService {
   ): Promise<{ outcome: 'applied' | 'ignored'; reason: string | null; orderId: string | null; receiptFor?: string }> {
     if (event.type === 'checkout.session.expired') {
       const orderId = (event.data.object as Stripe.Checkout.Session).client_reference_id;
-      const order = orderId && UUID.test(orderId) ? await manager.getRepository(SeatOrder).findOne({ where: { id: orderId }, lock: { mode: 'pessimistic_write' } }) : null;
+      const order = isUuid(orderId) ? await manager.getRepository(SeatOrder).findOne({ where: { id: orderId }, lock: { mode: 'pessimistic_write' } }) : null;
       if (!order) return { outcome: 'ignored', reason: 'No order of ours.', orderId: null };
       if (order.status !== 'pending') return { outcome: 'ignored', reason: `The order is already ${order.status}.`, orderId: order.id };
       await manager.update(SeatOrder, { id: order.id }, { status: 'expired' });
@@ -160,7 +160,7 @@ export class PaymentsService {
     }
     if (!session) return { outcome: 'ignored', reason: `Flowlore does not act on ${event.type}.`, orderId: null };
     const orderId = session.client_reference_id;
-    const order = orderId && UUID.test(orderId) ? await manager.getRepository(SeatOrder).findOne({ where: { id: orderId }, lock: { mode: 'pessimistic_write' } }) : null;
+    const order = isUuid(orderId) ? await manager.getRepository(SeatOrder).findOne({ where: { id: orderId }, lock: { mode: 'pessimistic_write' } }) : null;
     if (!order) return { outcome: 'ignored', reason: 'No order of ours.', orderId: null };
     if (session.payment_status !== 'paid') return { outcome: 'ignored', reason: `The checkout is ${session.payment_status}, not paid.`, orderId: order.id };
     if (order.status === 'paid') return { outcome: 'ignored', reason: 'The order was credited before.', orderId: order.id };
@@ -205,9 +205,13 @@ export class PaymentsService {
     );
   }
 
-  /** Pending orders whose checkout has ended without a payment are expired (the provider's event may come later). */
-  private async expireStale(poolId: string): Promise<void> {
-    await this.dataSource.query(`UPDATE seat_order SET status = 'expired' WHERE pool_id = $1 AND status = 'pending' AND expires_at < $2`, [poolId, this.now()]);
+  /** Pending orders of the shop (or just one) whose checkout has ended without a payment are expired (the provider's event may come later). */
+  private async expireStale(shopId: string, orderId?: string): Promise<void> {
+    await this.dataSource.query(
+      `UPDATE seat_order o SET status = 'expired' FROM seat_pool p
+        WHERE p.id = o.pool_id AND p.shop_id = $1 AND o.status = 'pending' AND o.expires_at < $2 AND ($3::uuid IS NULL OR o.id = $3)`,
+      [shopId, this.now(), orderId ?? null],
+    );
   }
 }
 

@@ -10,6 +10,7 @@ import { choiceOrder, drawFresh, interpolateStem, questionSeed, runCheck } from 
 import { gradeResponse, toleranceText } from '../../shared/quiz/grade';
 import type { User } from '../accounts/user.entity';
 import { HttpProblem } from '../http/problem';
+import { isUuid } from '../http/uuid';
 import { learningStatements } from '../progress/learning-statements';
 import { QuestionVersion, type QuestionHtml } from './question-version.entity';
 import { mayTakeQuiz, mayViewAttemptsOf } from './quiz-access';
@@ -28,8 +29,6 @@ export interface AttemptsServiceOptions {
 }
 
 const MAX_CACHED_VERSIONS = 10_000;
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /**
  * Attempts at quizzes: start (draw the numbers, shuffle the choices, keep them), autosave per
@@ -194,7 +193,7 @@ export class AttemptsService {
 
   /** Final and idempotent: the first submit grades; a repeat or a concurrent one returns the same result. */
   async submit(user: User, attemptId: string): Promise<AttemptView> {
-    if (!UUID.test(attemptId)) throw HttpProblem.notFound(`There is no attempt "${attemptId}".`);
+    if (!isUuid(attemptId)) throw HttpProblem.notFound(`There is no attempt "${attemptId}".`);
     // The grading's own rows when this call graded it; a repeat (or the loser of a race) reads them.
     const graded = await this.gradeOnce(attemptId, user);
     if (graded) return this.render(graded.attempt, graded.responses);
@@ -218,7 +217,7 @@ export class AttemptsService {
 
   /** The attempt, if the caller may see it (`view`) or act on it (`answer`: its apprentice only). */
   private async attemptFor(user: User, attemptId: string, purpose: 'view' | 'answer'): Promise<QuizAttempt> {
-    const attempt = UUID.test(attemptId) ? await this.dataSource.getRepository(QuizAttempt).findOneBy({ id: attemptId }) : null;
+    const attempt = isUuid(attemptId) ? await this.dataSource.getRepository(QuizAttempt).findOneBy({ id: attemptId }) : null;
     if (!attempt) throw HttpProblem.notFound(`There is no attempt "${attemptId}".`);
     const allowed = purpose === 'answer' ? attempt.userId === user.id : await mayViewAttemptsOf(this.dataSource, user, attempt.userId);
     if (!allowed) throw HttpProblem.forbidden('This attempt belongs to someone else.');

@@ -17,6 +17,7 @@ import { gradeResponse } from '../../shared/quiz/grade';
 import type { User } from '../accounts/user.entity';
 import { recordAudit } from '../admin/audit-log';
 import { HttpProblem } from '../http/problem';
+import { isUuid } from '../http/uuid';
 import type { Mailer } from '../mail/mailer';
 import { answerGradedMail } from '../mail/templates/answer-graded';
 import { notify } from '../notifications/notifications.service';
@@ -37,8 +38,6 @@ export interface GradingServiceOptions {
   readonly appBaseUrl: string;
   readonly now?: () => Date;
 }
-
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 interface QueueRow {
   response_id: string;
@@ -118,7 +117,7 @@ export class GradingService {
 
   /** A submitted attempt as its grader sees it: every answer, key and override. */
   async attempt(viewer: User, attemptId: string): Promise<GradingAttempt> {
-    const attempt = UUID.test(attemptId) ? await this.dataSource.getRepository(QuizAttempt).findOne({ where: { id: attemptId }, relations: { user: true } }) : null;
+    const attempt = isUuid(attemptId) ? await this.dataSource.getRepository(QuizAttempt).findOne({ where: { id: attemptId }, relations: { user: true } }) : null;
     if (!attempt) throw HttpProblem.notFound(`There is no attempt "${attemptId}".`);
     if (!(await mayGradeAttemptsOf(this.dataSource, viewer, attempt.userId))) throw HttpProblem.forbidden('This apprentice is not in one of your cohorts.');
     const responses = await this.dataSource.getRepository(QuizResponse).find({ where: { attemptId }, relations: { questionVersion: true }, order: { position: 'ASC' } });
@@ -374,7 +373,7 @@ export class GradingService {
 
   /** The response, if the viewer may grade its apprentice: 404 for an unknown id, 403 for another instructor's apprentice. */
   private async responseFor(viewer: User, responseId: string): Promise<QuizResponse> {
-    const response = UUID.test(responseId)
+    const response = isUuid(responseId)
       ? await this.dataSource.getRepository(QuizResponse).findOne({ where: { id: responseId }, relations: { questionVersion: true, attempt: true } })
       : null;
     if (!response) throw HttpProblem.notFound(`There is no answer "${responseId}".`);

@@ -8,6 +8,7 @@ import type { User } from '../accounts/user.entity';
 import { recordAudit } from '../admin/audit-log';
 import { tokenHash } from '../auth/account-tokens';
 import { HttpProblem } from '../http/problem';
+import { isUuid } from '../http/uuid';
 import type { Mailer } from '../mail/mailer';
 import { invitationMail } from '../mail/templates/invitation';
 import { SeatInvitation } from './seat-invitation.entity';
@@ -25,7 +26,6 @@ export interface SeatsServiceOptions {
 }
 
 const INVITATION_MS = INVITATION_DAYS * 24 * 3600_000;
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 
 /**
  * A shop's seats: the balance, invitations that hold a seat for an address (14 days; resend,
@@ -210,7 +210,7 @@ export class SeatsService {
 
   /** The seat comes back to the shop; the apprentice keeps their progress and attempts. */
   async release(owner: User, shopId: string, seatId: string): Promise<void> {
-    if (!UUID.test(seatId)) throw HttpProblem.notFound('Your shop has no such seat.');
+    if (!isUuid(seatId)) throw HttpProblem.notFound('Your shop has no such seat.');
     const pool = await this.poolOf(this.dataSource.manager, shopId);
     await this.dataSource.transaction(async (manager) => {
       const seat = await manager.getRepository(Seat).findOne({ where: { id: seatId, poolId: pool.id }, lock: { mode: 'pessimistic_write' } });
@@ -234,7 +234,7 @@ export class SeatsService {
 
   private async pendingInvitation(shopId: string, invitationId: string): Promise<SeatInvitation> {
     const pool = await this.poolOf(this.dataSource.manager, shopId);
-    const invitation = UUID.test(invitationId)
+    const invitation = isUuid(invitationId)
       ? await this.dataSource.getRepository(SeatInvitation).findOne({ where: { id: invitationId }, relations: { seat: true } })
       : null;
     if (!invitation || invitation.seat?.poolId !== pool.id) throw HttpProblem.notFound('Your shop has no such invitation.');
