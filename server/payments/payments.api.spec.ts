@@ -63,6 +63,12 @@ describe('payments: orders, checkout and the provider’s events', () => {
 
   const provider = () => new Stripe(SECRET_KEY, { host: '127.0.0.1', port: running.port, protocol: 'http' });
   const purchased = async (shopId: string): Promise<number> => (await dataSource.query('SELECT purchased FROM seat_pool WHERE shop_id = $1', [shopId]))[0]?.purchased ?? 0;
+  /** An order through the API; a refusal fails here with the server's problem, not later as a bad URL. */
+  const buy = async (browser: Browser, quantity: number): Promise<CheckoutStart> => {
+    const res = await browser.send('post', '/api/shop/orders', { quantity });
+    expect({ status: res.status, body: res.status === 201 ? 'ok' : res.body }).toEqual({ status: 201, body: 'ok' });
+    return res.body as CheckoutStart;
+  };
   const sessionOf = (start: CheckoutStart) => new URL(start.checkoutUrl).pathname.split('/').pop()!;
   const completedEventOf = (sessionId: string) => fake.controls.events().find((e) => e.type === 'checkout.session.completed' && (e.data.object as { id: string }).id === sessionId)!;
 
@@ -91,7 +97,7 @@ describe('payments: orders, checkout and the provider’s events', () => {
 
   it('the same completed event delivered 10 times at once: credited once, one receipt', async () => {
     const { browser, shopId, email } = await owner();
-    const start = (await browser.send('post', '/api/shop/orders', { quantity: 3 })).body as CheckoutStart;
+    const start = await buy(browser, 3);
     fake.controls.pay(sessionOf(start), '4242424242424242');
     await fake.controls.idle();
     const event = completedEventOf(sessionOf(start));
@@ -106,7 +112,7 @@ describe('payments: orders, checkout and the provider’s events', () => {
 
   it('a bad signature or a stale timestamp is a 400 and changes nothing; an unknown event type is a 200 that changes nothing', async () => {
     const { browser, shopId } = await owner();
-    const start = (await browser.send('post', '/api/shop/orders', { quantity: 2 })).body as CheckoutStart;
+    const start = await buy(browser, 2);
     fake.controls.hold(); // deliver nothing yet
     fake.controls.pay(sessionOf(start), '4242424242424242');
     const event = completedEventOf(sessionOf(start));
@@ -136,12 +142,15 @@ describe('payments: orders, checkout and the provider’s events', () => {
 
   it('a batch delivered out of order ends in the right state: one order paid, the other expired', async () => {
     const { browser, shopId } = await owner();
-    const first = (await browser.send('post', '/api/shop/orders', { quantity: 2 })).body as CheckoutStart;
-    const second = (await browser.send('post', '/api/shop/orders', { quantity: 7 })).body as CheckoutStart;
+    const first = await buy(browser, 2);
+    const second = await buy(browser, 7);
     fake.controls.hold();
-    fake.controls.pay(sessionOf(first), '4242424242424242');
-    await provider().checkout.sessions.expire(sessionOf(second));
-    await fake.controls.release('reverse');
+    try {
+      fake.controls.pay(sessionOf(first), '4242424242424242');
+      await provider().checkout.sessions.expire(sessionOf(second));
+    } finally {
+      await fake.controls.release('reverse');
+    }
     await fake.controls.idle();
     const orders = (await browser.get('/api/shop/orders')).body as OrderView[];
     expect(Object.fromEntries(orders.map((o) => [o.quantity, o.status]))).toEqual({ 2: 'paid', 7: 'expired' });
@@ -150,7 +159,7 @@ describe('payments: orders, checkout and the provider’s events', () => {
 
   it('after the app answered 500, the fake retries and the retry is applied once', async () => {
     const { browser, shopId } = await owner();
-    const start = (await browser.send('post', '/api/shop/orders', { quantity: 4 })).body as CheckoutStart;
+    const start = await buy(browser, 4);
     forced.push(500);
     fake.controls.pay(sessionOf(start), '4242424242424242');
     await fake.controls.idle();
@@ -161,7 +170,7 @@ describe('payments: orders, checkout and the provider’s events', () => {
 
   it('a declined card credits nothing and leaves the order waiting for another try', async () => {
     const { browser, shopId } = await owner();
-    const start = (await browser.send('post', '/api/shop/orders', { quantity: 1 })).body as CheckoutStart;
+    const start = await buy(browser, 1);
     expect(fake.controls.pay(sessionOf(start), '4000 0000 0000 0002').result).toBe('declined');
     await fake.controls.idle();
     expect(((await browser.get(`/api/shop/orders/${start.order.id}`)).body as OrderView).status).toBe('pending');
